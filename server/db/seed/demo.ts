@@ -1,0 +1,69 @@
+/**
+ * The demo scenario: an invented dryland town, Saltbush Bend, whose garden network runs a
+ * season of olla trials. Every place, person and number here is made up.
+ */
+import type { DataSource } from 'typeorm';
+import { hashPassword } from '../../auth/passwords';
+import type { Logger } from '../../lib/logger';
+import { newJoinCode } from '../../services/cohorts.service';
+
+export const DEMO_PASSWORD = 'olla-demo-2026';
+
+export const demoAccounts = [
+  { email: 'admin@saltbush.example', displayName: 'Site Admin', role: 'admin' },
+  { email: 'marisol@saltbush.example', displayName: 'Marisol Quintero-Hale', role: 'educator' },
+  { email: 'teacher@saltbush.example', displayName: 'Dev Okonjo-Lind', role: 'educator' },
+  { email: 'ruth@saltbush.example', displayName: 'Ruth Abernathy-Sol', role: 'grower', language: 'en', unitSystem: 'us' },
+  { email: 'tomas@saltbush.example', displayName: 'Tomás Verdejo', role: 'grower', language: 'es' },
+  { email: 'ines@saltbush.example', displayName: 'Inés Carranza', role: 'grower', language: 'es' },
+  { email: 'wendell@saltbush.example', displayName: 'Wendell Pike', role: 'grower' },
+  { email: 'priya@saltbush.example', displayName: 'Priya Dunmore', role: 'grower' },
+  { email: 'student@saltbush.example', displayName: 'Ada Student', role: 'grower' },
+] as const;
+
+/** Loads the invented demo scenario into an empty database (first start, `npm run db:seed`). */
+export async function seedDemoIfEmpty(dataSource: DataSource, logger: Logger): Promise<boolean> {
+  const [{ count }] = (await dataSource.query('SELECT count(*)::int AS count FROM users')) as [{ count: number }];
+  if (count > 0) return false;
+  logger.info('Empty database: loading the Saltbush Bend demo scenario.');
+  const hash = await hashPassword(DEMO_PASSWORD);
+  await dataSource.transaction(async (tx) => {
+    const ids: Record<string, string> = {};
+    for (const a of demoAccounts) {
+      const [row] = (await tx.query(
+        `INSERT INTO users (email, password_hash, display_name, role, language, unit_system, email_verified_at)
+         VALUES ($1, $2, $3, $4, $5, $6, now()) RETURNING id`,
+        [a.email, hash, a.displayName, a.role, 'language' in a ? a.language : 'en', 'unitSystem' in a ? a.unitSystem : 'metric'],
+      )) as { id: string }[];
+      ids[a.email] = row!.id;
+    }
+    const [network] = (await tx.query(
+      `INSERT INTO cohorts (name, description, kind, lead_id, join_code, licence)
+       VALUES ($1, $2, 'network', $3, $4, 'CC-BY-4.0') RETURNING id`,
+      [
+        'Saltbush Bend Garden Network',
+        'Home gardens across Saltbush Bend comparing buried clay pots with surface watering through one summer.',
+        ids['marisol@saltbush.example'],
+        newJoinCode(),
+      ],
+    )) as { id: string }[];
+    const [klass] = (await tx.query(
+      `INSERT INTO cohorts (name, description, kind, lead_id, join_code, licence)
+       VALUES ($1, $2, 'class', $3, $4, 'CC-BY-4.0') RETURNING id`,
+      ['Saltbush Bend High — Biology 2', 'A class reading the network’s pooled results for their reports.', ids['teacher@saltbush.example'], newJoinCode()],
+    )) as { id: string }[];
+    const members: [string, string, 'contributor' | 'observer', string][] = [
+      [network!.id, 'ruth@saltbush.example', 'contributor', 'Grower B12'],
+      [network!.id, 'tomas@saltbush.example', 'contributor', 'Grower K7'],
+      [network!.id, 'ines@saltbush.example', 'contributor', 'Grower R31'],
+      [network!.id, 'wendell@saltbush.example', 'contributor', 'Grower T44'],
+      [network!.id, 'priya@saltbush.example', 'contributor', 'Grower M58'],
+      [network!.id, 'student@saltbush.example', 'observer', 'Observer H9'],
+      [klass!.id, 'student@saltbush.example', 'observer', 'Observer Q2'],
+    ];
+    for (const [cohortId, email, role, pseudonym] of members) {
+      await tx.query(`INSERT INTO cohort_memberships (cohort_id, user_id, role, pseudonym) VALUES ($1, $2, $3, $4)`, [cohortId, ids[email], role, pseudonym]);
+    }
+  });
+  return true;
+}

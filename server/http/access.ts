@@ -1,0 +1,79 @@
+import type { RequestHandler } from 'express';
+import type { DataSource } from 'typeorm';
+import { AppError } from '../lib/app-error';
+
+/**
+ * Who may call a route. Every API route declares one of these in its route spec; the
+ * permission-matrix test reads the same specs.
+ *
+ * - public: anyone, signed in or not.
+ * - signed-in: any signed-in account.
+ * - role: signed-in with one of the roles (others get 403).
+ * - cohort-lead / cohort-member: the route's `:cohortId` names a cohort the caller leads / belongs
+ *   to (lead, contributor or observer). Outsiders get 404, so a cohort's existence is not revealed.
+ */
+export type Access =
+  | { kind: 'public' }
+  | { kind: 'signed-in' }
+  | { kind: 'role'; roles: ('grower' | 'educator' | 'admin')[] }
+  | { kind: 'cohort-lead'; param: string }
+  | { kind: 'cohort-member'; param: string }
+  | { kind: 'resource'; resource: ResourceKind; param: string; level: 'owner' | 'reader' };
+
+/** Resources owned by a grower (filled in by the notebook: garden, trial, plot, pot...). */
+export type ResourceKind = string;
+
+/**
+ * Resolves whether a user may reach a resource: 'owner' for the owner, 'reader' when it can be
+ * read through a cohort, null otherwise. Registered by the features that own the tables.
+ */
+export type ResourceResolver = (ds: DataSource, userId: string, id: string) => Promise<'owner' | 'reader' | null>;
+
+export const access = {
+  public: { kind: 'public' } as Access,
+  signedIn: { kind: 'signed-in' } as Access,
+  admin: { kind: 'role', roles: ['admin'] } as Access,
+  educator: { kind: 'role', roles: ['educator', 'admin'] } as Access,
+  cohortLead: (param = 'cohortId'): Access => ({ kind: 'cohort-lead', param }),
+  cohortMember: (param = 'cohortId'): Access => ({ kind: 'cohort-member', param }),
+  owner: (resource: ResourceKind, param: string): Access => ({ kind: 'resource', resource, param, level: 'owner' }),
+  reader: (resource: ResourceKind, param: string): Access => ({ kind: 'resource', resource, param, level: 'reader' }),
+};
+
+const uuidRe = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export function authorize(rule: Access, ds: DataSource, resolvers: Record<string, ResourceResolver>): RequestHandler {
+  return (req, res, next) => {
+    if (rule.kind === 'public') return next();
+    const user = req.user;
+    if (!user) return next(new AppError('unauthenticated', 'Please sign in to do that.'));
+    if (rule.kind === 'signed-in') return next();
+    if (rule.kind === 'role') {
+      return rule.roles.includes(user.role) ? next() : next(AppError.forbidden('Your account role cannot do that.'));
+    }
+    const id = req.params[rule.param];
+    const what = rule.kind === 'resource' ? rule.resource : 'Cohort';
+    if (typeof id !== 'string' || !uuidRe.test(id)) return next(AppError.notFound(what));
+    const check = async () => {
+      if (rule.kind === 'cohort-lead' || rule.kind === 'cohort-member') {
+        const rows = (await ds.query(
+          `SELECT c.lead_id = $2 AS is_lead, m.role AS member_role
+             FROM cohorts c LEFT JOIN cohort_memberships m ON m.cohort_id = c.id AND m.user_id = $2
+            WHERE c.id = $1`,
+          [id, user.id],
+        )) as { is_lead: boolean; member_role: string | null }[];
+        const row = rows[0];
+        const ok = row && (row.is_lead || (rule.kind === 'cohort-member' && row.member_role !== null));
+        if (!ok) throw AppError.notFound('Cohort');
+        res.locals.cohortRole = row.is_lead ? 'lead' : row.member_role;
+        return;
+      }
+      const resolver = resolvers[rule.resource];
+      if (!resolver) throw new Error(`No access resolver for ${rule.resource}`);
+      const level = await resolver(ds, user.id, id);
+      if (!level || (rule.level === 'owner' && level !== 'owner')) throw AppError.notFound(rule.resource);
+      res.locals.accessLevel = level;
+    };
+    check().then(() => next(), next);
+  };
+}

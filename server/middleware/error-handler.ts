@@ -1,0 +1,57 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { AppError } from '../lib/app-error';
+import type { Logger } from '../lib/logger';
+
+/** PostgreSQL error codes that mean "the database is not reachable right now". */
+const unavailableCodes = new Set(['57P01', '57P02', '57P03', '08000', '08003', '08006', '08001', 'ECONNREFUSED', 'ECONNRESET']);
+
+function isDatabaseUnavailable(err: unknown): boolean {
+  const e = err as { code?: string; message?: string; driverError?: { code?: string } } | null;
+  if (!e) return false;
+  const code = e.code ?? e.driverError?.code;
+  if (code && unavailableCodes.has(code)) return true;
+  return /Connection terminated|connect ECONNREFUSED|the database system is (starting up|shutting down)/i.test(e.message ?? '');
+}
+
+export const notFoundHandler: RequestHandler = (req, _res, next) => {
+  next(new AppError('not_found', `No API route for ${req.method} ${req.path}.`));
+};
+
+export function errorHandler(logger: Logger): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    if (res.headersSent) {
+      logger.error({ err, path: req.path }, 'error after response started');
+      res.destroy();
+      return;
+    }
+    if (err instanceof AppError) {
+      res.status(err.status).json({ error: { code: err.code, message: err.message, details: err.details } });
+      return;
+    }
+    // body-parser and multer errors carry a status and a type.
+    const e = err as { status?: number; statusCode?: number; type?: string; code?: string; message?: string };
+    const status = e.status ?? e.statusCode;
+    if (e.type === 'entity.too.large' || e.code === 'LIMIT_FILE_SIZE') {
+      res.status(413).json({ error: { code: 'payload_too_large', message: 'The request is larger than allowed.' } });
+      return;
+    }
+    if (e.type === 'entity.parse.failed') {
+      res.status(400).json({ error: { code: 'validation_failed', message: 'The request body is not valid JSON.' } });
+      return;
+    }
+    if (status && status >= 400 && status < 500) {
+      res.status(status).json({ error: { code: 'validation_failed', message: e.message ?? 'Bad request.' } });
+      return;
+    }
+    if (isDatabaseUnavailable(err)) {
+      logger.warn({ err: e.message, path: req.path }, 'database unavailable');
+      res.setHeader('Retry-After', '5');
+      res.status(503).json({
+        error: { code: 'service_unavailable', message: 'The database is not reachable right now. Nothing was saved; please try again in a few seconds.' },
+      });
+      return;
+    }
+    logger.error({ err, path: req.path, method: req.method }, 'unhandled error');
+    res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong on our side. It has been logged.' } });
+  };
+}

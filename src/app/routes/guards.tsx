@@ -1,0 +1,50 @@
+import { Navigate, Outlet, useLocation } from 'react-router-dom';
+import type { Account } from '@shared/schemas/auth';
+import { AppShell } from '@/components/layout/app-shell';
+import { paths } from '@/config/paths';
+import { useSignOut } from '@/features/auth/api/auth-mutations';
+import { useSession } from '@/features/auth/api/get-session';
+import { SESSION_EXPIRED_FLAG } from '../query-client';
+
+function Loading() {
+  return (
+    <p role="status" className="p-8 text-ink-muted">
+      Loading…
+    </p>
+  );
+}
+
+/** Signed-in pages: redirects to sign-in (remembering where to come back) when there is no session. */
+export function RequireAuth({ roles }: { roles?: Account['role'][] }) {
+  const session = useSession();
+  const location = useLocation();
+  const signOut = useSignOut();
+  if (session.isPending) return <Loading />;
+  const user = session.data?.user;
+  if (!user) {
+    const expired = sessionStorage.getItem(SESSION_EXPIRED_FLAG) === '1';
+    const next = encodeURIComponent(location.pathname + location.search);
+    return <Navigate to={`${paths.signIn}?next=${next}${expired ? '&reason=expired' : ''}`} replace />;
+  }
+  if (roles && !roles.includes(user.role)) {
+    return (
+      <AppShell user={user} onSignOut={() => signOut.mutateAsync().then(() => undefined)}>
+        <h1>Not available</h1>
+        <p className="mt-2 text-ink-muted">This page is for {roles.join(' or ')} accounts.</p>
+      </AppShell>
+    );
+  }
+  return (
+    <AppShell user={user} onSignOut={() => signOut.mutateAsync().then(() => undefined)}>
+      <Outlet />
+    </AppShell>
+  );
+}
+
+/** Sign-in and sign-up pages: a signed-in visitor goes home instead. */
+export function RedirectIfSignedIn() {
+  const session = useSession();
+  if (session.isPending) return <Loading />;
+  if (session.data?.user) return <Navigate to={paths.home} replace />;
+  return <Outlet />;
+}

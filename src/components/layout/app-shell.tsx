@@ -1,0 +1,94 @@
+import { useState, type ReactNode } from 'react';
+import { NavLink, useNavigate } from 'react-router-dom';
+import type { Account } from '@shared/schemas/auth';
+import { paths } from '@/config/paths';
+import { cn } from '@/lib/utils';
+import { Logo } from './logo';
+
+export interface NavItem {
+  to: string;
+  label: string;
+  /** Roles that see the item; omitted: everyone signed in. */
+  roles?: Account['role'][];
+}
+
+const navItems: NavItem[] = [
+  { to: paths.home, label: 'Home' },
+  { to: paths.cohorts, label: 'Cohorts' },
+  { to: paths.guides, label: 'Guides' },
+  { to: paths.account, label: 'Account' },
+  { to: paths.admin, label: 'Admin', roles: ['admin'] },
+];
+
+export function visibleNavItems(role: Account['role']) {
+  return navItems.filter((i) => !i.roles || i.roles.includes(role));
+}
+
+export function AppShell({ user, onSignOut, children }: { user: Account; onSignOut: () => Promise<void>; children: ReactNode }) {
+  const [open, setOpen] = useState(false);
+  const navigate = useNavigate();
+  const items = visibleNavItems(user.role);
+  const signOut = async () => {
+    await onSignOut();
+    navigate(paths.signIn);
+  };
+  return (
+    <div className="min-h-screen">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+        Skip to content
+      </a>
+      <header className="border-b border-sand-200 bg-white">
+        <div className="mx-auto flex max-w-6xl items-center gap-4 px-4 py-3">
+          <NavLink to={paths.home} aria-label="Seepwise home">
+            <Logo />
+          </NavLink>
+          <button
+            type="button"
+            className="ml-auto rounded-lg border border-sand-300 px-3 py-2 text-sm md:hidden"
+            aria-expanded={open}
+            aria-controls="main-nav"
+            onClick={() => setOpen((v) => !v)}
+          >
+            Menu
+          </button>
+          <nav id="main-nav" aria-label="Main" className={cn('w-full md:ml-6 md:flex md:w-auto md:items-center', open ? 'block' : 'hidden md:flex')}>
+            <ul className="flex flex-col gap-1 md:flex-row md:gap-1">
+              {items.map((item) => (
+                <li key={item.to}>
+                  <NavLink
+                    to={item.to}
+                    end={item.to === paths.home}
+                    onClick={() => setOpen(false)}
+                    className={({ isActive }) =>
+                      cn('block rounded-lg px-3 py-2 text-sm font-medium', isActive ? 'bg-terracotta-50 text-terracotta-800' : 'text-ink-muted hover:bg-sand-100 hover:text-ink')
+                    }
+                  >
+                    {item.label}
+                  </NavLink>
+                </li>
+              ))}
+            </ul>
+          </nav>
+          <div className="hidden items-center gap-3 md:ml-auto md:flex">
+            <span className="text-sm text-ink-muted">
+              {user.displayName} <span className="rounded bg-sand-100 px-1.5 py-0.5 text-xs capitalize">{user.role}</span>
+            </span>
+            <button type="button" className="text-sm font-medium text-terracotta-700 underline" onClick={() => void signOut()}>
+              Sign out
+            </button>
+          </div>
+        </div>
+        {open ? (
+          <div className="border-t border-sand-200 px-4 py-2 md:hidden">
+            <button type="button" className="text-sm font-medium text-terracotta-700 underline" onClick={() => void signOut()}>
+              Sign out ({user.displayName})
+            </button>
+          </div>
+        ) : null}
+      </header>
+      <main id="main" className="mx-auto max-w-6xl px-4 py-6">
+        {children}
+      </main>
+    </div>
+  );
+}

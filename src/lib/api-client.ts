@@ -1,0 +1,80 @@
+import type { ApiError } from '@shared/api-error';
+
+/** An API failure with the server's code, message and field details. */
+export class ApiRequestError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+  }
+
+  /** Field-level messages keyed by field path, for forms. */
+  get fieldErrors(): Record<string, string> {
+    const out: Record<string, string> = {};
+    if (Array.isArray(this.details)) {
+      for (const d of this.details as { path?: string; message?: string }[]) {
+        if (d.path && d.message && !out[d.path]) out[d.path] = d.message;
+      }
+    }
+    return out;
+  }
+}
+
+let csrfToken: string | null = null;
+/** The session's CSRF token, sent on every state-changing request. Set from /api/auth/session. */
+export function setCsrfToken(token: string | null) {
+  csrfToken = token;
+}
+
+type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+
+async function request<T>(method: Method, url: string, body?: unknown, init: RequestInit = {}): Promise<T> {
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
+  if (method !== 'GET' && csrfToken) headers['X-CSRF-Token'] = csrfToken;
+  let res: Response;
+  try {
+    res = await fetch(url, {
+      method,
+      credentials: 'same-origin',
+      headers,
+      body: body === undefined ? undefined : isForm ? (body as FormData) : JSON.stringify(body),
+      ...init,
+    });
+  } catch {
+    throw new ApiRequestError(0, 'network_error', 'Could not reach Seepwise. Check your connection and try again.');
+  }
+  if (res.status === 204) return undefined as T;
+  const text = await res.text();
+  let json: unknown = null;
+  try {
+    json = text ? JSON.parse(text) : null;
+  } catch {
+    /* not JSON */
+  }
+  if (!res.ok) {
+    const err = (json as ApiError | null)?.error;
+    throw new ApiRequestError(res.status, err?.code ?? 'http_error', err?.message ?? `Request failed (${res.status}).`, err?.details);
+  }
+  return (json as { data: T }).data;
+}
+
+export const api = {
+  get: <T>(url: string, init?: RequestInit) => request<T>('GET', url, undefined, init),
+  post: <T>(url: string, body?: unknown) => request<T>('POST', url, body ?? {}),
+  patch: <T>(url: string, body: unknown) => request<T>('PATCH', url, body),
+  put: <T>(url: string, body: unknown) => request<T>('PUT', url, body),
+  delete: <T>(url: string) => request<T>('DELETE', url),
+};
+
+/** Builds a query string from defined values only. */
+export function qs(params: Record<string, string | number | boolean | undefined | null>): string {
+  const sp = new URLSearchParams();
+  for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== null && v !== '') sp.set(k, String(v));
+  const s = sp.toString();
+  return s ? `?${s}` : '';
+}

@@ -1,0 +1,65 @@
+import express from 'express';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { listen, startTestApp, type TestApp } from './test-app';
+
+const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+export const ARTIFACTS = path.resolve('tests/artifacts');
+
+/** Serves the built client from dist/ behind the API, as production does. */
+function builtClient(): express.RequestHandler[] {
+  const dist = path.resolve('dist');
+  return [
+    express.static(dist, { index: false }),
+    (req, res, next) => (req.method === 'GET' ? res.sendFile(path.join(dist, 'index.html')) : next()),
+  ];
+}
+
+export interface BrowserEnv {
+  t: TestApp;
+  baseUrl: string;
+  context: BrowserContext;
+  page: Page;
+  /** Errors the page threw or logged; a test can assert there were none. */
+  pageErrors: string[];
+  screenshot: (name: string) => Promise<void>;
+  close: () => Promise<void>;
+}
+
+/** A test app on a loopback port and a fresh headless Chromium profile pointed at it. */
+export async function startBrowserEnv(opts: { viewport?: { width: number; height: number } } = {}): Promise<BrowserEnv> {
+  const t = await startTestApp({ client: builtClient() });
+  const server = await listen(t.app);
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'seepwise-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    viewport: opts.viewport ?? { width: 1280, height: 800 },
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  const pageErrors: string[] = [];
+  page.on('pageerror', (e) => pageErrors.push(e.message));
+  page.on('console', (m) => {
+    if (m.type() === 'error' && !/Failed to load resource: the server responded with a status of 4\d\d/.test(m.text())) pageErrors.push(m.text());
+  });
+  fs.mkdirSync(ARTIFACTS, { recursive: true });
+  return {
+    t,
+    baseUrl: server.url,
+    context,
+    page,
+    pageErrors,
+    screenshot: async (name) => {
+      await page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
+    },
+    async close() {
+      await context.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+      await server.close();
+      await t.close();
+    },
+  };
+}

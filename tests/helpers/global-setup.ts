@@ -1,0 +1,39 @@
+/**
+ * Starts the tests' own PostgreSQL cluster (never the demo one: its own data directory and
+ * port) and builds a template database with every migration applied. Each test file then
+ * clones the template into a fresh database of its own.
+ */
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { createDataSource } from '../../server/db/data-source';
+import { recreateDatabase, startCluster, type RunningCluster } from '../../server/infra/postgres-cluster';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    pgPort: number;
+    templateDb: string;
+  }
+}
+
+let cluster: RunningCluster | null = null;
+
+export default async function setup(project: TestProject) {
+  const port = Number(process.env.SEEPWISE_TEST_PG_PORT ?? 54339);
+  process.env.SEEPWISE_PG_FSYNC = 'off';
+  cluster = await startCluster({
+    dataDir: path.resolve(process.env.SEEPWISE_DATA_DIR ?? '.data', 'pg-test'),
+    port,
+    database: 'postgres',
+  });
+  const templateDb = `seepwise_template_${project.name}`;
+  const url = recreateDatabase(cluster, templateDb);
+  const ds = createDataSource(url, { poolSize: 1 });
+  await ds.initialize();
+  await ds.runMigrations();
+  await ds.destroy();
+  project.provide('pgPort', port);
+  project.provide('templateDb', templateDb);
+  return () => {
+    cluster?.stop();
+  };
+}

@@ -1,0 +1,46 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
+const alias = { '@shared': r('./shared'), '@server': r('./server'), '@': r('./src') };
+
+/**
+ * Three projects: unit (pure shared/ code), api (supertest against a real PostgreSQL),
+ * browser (playwright-core driving Debian's Chromium against the built client).
+ */
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-setup.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+          pool: 'forks',
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'browser',
+          include: ['tests/browser/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-setup.ts', 'tests/helpers/global-setup-browser.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          pool: 'forks',
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
