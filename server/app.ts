@@ -18,6 +18,11 @@ import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { adminRoutes } from './routes/admin.routes';
 import { authRoutes, defaultAuthLimits, type AuthLimits } from './routes/auth.routes';
 import { cohortRoutes } from './routes/cohorts.routes';
+import { gardenRoutes } from './routes/gardens.routes';
+import { logRoutes } from './routes/logs.routes';
+import { potRoutes } from './routes/pots.routes';
+import { trialRoutes } from './routes/trials.routes';
+import { notebookResolvers } from './http/resolvers';
 import { healthRoutes } from './routes/health.routes';
 
 export interface AppDeps {
@@ -38,11 +43,19 @@ export interface AppDeps {
 
 /** Every API route spec, in mount order (the permission-matrix test reads this list). */
 export function buildRouteSpecs(ctx: AppContext, authLimits: AuthLimits = defaultAuthLimits): RouteSpec[] {
-  return [...authRoutes(ctx, authLimits), ...cohortRoutes(ctx), ...adminRoutes(ctx)];
+  return [
+    ...authRoutes(ctx, authLimits),
+    ...cohortRoutes(ctx),
+    ...adminRoutes(ctx),
+    ...gardenRoutes(ctx),
+    ...trialRoutes(ctx),
+    ...potRoutes(ctx),
+    ...logRoutes(ctx),
+  ];
 }
 
 /** Resource ownership checks, registered by the features that own the tables. */
-export const resourceResolvers: Record<string, ResourceResolver> = {};
+export const resourceResolvers: Record<string, ResourceResolver> = { ...notebookResolvers };
 
 /** Builds the Express app without listening, so tests and benchmarks use the same app. */
 export function createApp(deps: AppDeps) {

@@ -1,7 +1,11 @@
 import 'reflect-metadata';
+import pg from 'pg';
 import { DataSource } from 'typeorm';
 import { entities } from './entities';
 import { migrations } from './migration-list';
+
+// Calendar dates stay 'YYYY-MM-DD' strings: a JS Date would shift them by the server's time zone.
+pg.types.setTypeParser(pg.types.builtins.DATE, (v) => v);
 
 export function createDataSource(url: string, opts: { poolSize?: number } = {}) {
   return new DataSource({

@@ -1,5 +1,6 @@
 import type { MigrationInterface } from 'typeorm';
 import { Initial1796172961355 } from './migrations/1796172961355-Initial';
+import { Notebook1796173447622 } from './migrations/1796173447622-Notebook';
 
 /** Every migration, in order, as a class array. Add new ones at the end. */
-export const migrations: (new () => MigrationInterface)[] = [Initial1796172961355];
+export const migrations: (new () => MigrationInterface)[] = [Initial1796172961355, Notebook1796173447622];

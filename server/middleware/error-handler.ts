@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { AnalysisInputError } from '@shared/analysis/input-error';
 import { AppError } from '../lib/app-error';
 import type { Logger } from '../lib/logger';
 
@@ -26,6 +27,10 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     }
     if (err instanceof AppError) {
       res.status(err.status).json({ error: { code: err.code, message: err.message, details: err.details } });
+      return;
+    }
+    if (err instanceof AnalysisInputError) {
+      res.status(400).json({ error: { code: 'validation_failed', message: err.message } });
       return;
     }
     // body-parser and multer errors carry a status and a type.

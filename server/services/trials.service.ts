@@ -1,0 +1,292 @@
+import { randomBytes } from 'node:crypto';
+import { randomiseWithinBlocks } from '@shared/analysis/randomise';
+import type { CreatePlotInput, Plot, UpdatePlotInput } from '@shared/schemas/plots';
+import type { CreateTrialInput, Trial, TrialStatus, UpdateTrialInput } from '@shared/schemas/trials';
+import { createTrialInputSchema } from '@shared/schemas/trials';
+import type { EntityManager } from 'typeorm';
+import type { AppContext } from '../context';
+import { PlotEntity } from '../entities/plot.entity';
+import { TrialEntity } from '../entities/trial.entity';
+import { AppError } from '../lib/app-error';
+import { zodIssues } from '../middleware/validate';
+import { diff, mustAudit, writeAudit } from './audit';
+
+const trialSelect = `
+  SELECT t.*, g.name AS garden_name,
+         (SELECT count(*)::int FROM plots p WHERE p.trial_id = t.id) AS plot_count,
+         GREATEST(
+           (SELECT max(occurred_at) FROM water_events w WHERE w.trial_id = t.id),
+           (SELECT max(taken_at) FROM moisture_readings m WHERE m.trial_id = t.id),
+           (SELECT max(harvested_on)::timestamptz FROM harvests h WHERE h.trial_id = t.id)
+         ) AS last_logged_at
+    FROM trials t JOIN gardens g ON g.id = t.garden_id`;
+
+interface TrialRow {
+  id: string;
+  garden_id: string;
+  garden_name: string;
+  owner_id: string;
+  title: string;
+  crop: Trial['crop'];
+  crop_name: string;
+  variety: string;
+  planting_date: string;
+  end_date: string | null;
+  design: Trial['design'];
+  treatments: string[];
+  question: string;
+  protocol_notes: string;
+  kc_overrides: Trial['kcOverrides'];
+  stress_thresholds: Record<string, number>;
+  status: TrialStatus;
+  randomisation_seed: string | null;
+  plot_count: number;
+  last_logged_at: Date | null;
+  created_at: Date;
+  updated_at: Date;
+}
+
+function presentTrial(r: TrialRow, access: 'owner' | 'reader'): Trial {
+  return {
+    id: r.id,
+    gardenId: r.garden_id,
+    // Cohort readers never see the garden's own name (it can identify the grower).
+    gardenName: access === 'owner' ? r.garden_name : '',
+    title: r.title,
+    crop: r.crop,
+    cropName: r.crop_name,
+    variety: r.variety,
+    plantingDate: r.planting_date,
+    endDate: r.end_date,
+    design: r.design,
+    treatments: r.treatments,
+    question: r.question,
+    protocolNotes: r.protocol_notes,
+    kcOverrides: r.kc_overrides,
+    stressThresholds: r.stress_thresholds,
+    status: r.status,
+    randomisationSeed: r.randomisation_seed,
+    access,
+    plotCount: r.plot_count,
+    lastLoggedAt: r.last_logged_at ? new Date(r.last_logged_at).toISOString() : null,
+    createdAt: r.created_at.toISOString(),
+    updatedAt: r.updated_at.toISOString(),
+  };
+}
+
+export function presentPlot(p: PlotEntity, potIds: string[] = []): Plot {
+  return {
+    id: p.id,
+    trialId: p.trialId,
+    label: p.label,
+    treatment: p.treatment,
+    blockKey: p.blockKey,
+    areaM2: p.areaM2,
+    setting: p.setting,
+    mulch: p.mulch,
+    lid: p.lid,
+    plantCount: p.plantCount,
+    potIds,
+    createdAt: p.createdAt.toISOString(),
+  };
+}
+
+/** Closed trials are read-only until their owner reopens them. */
+export async function assertTrialWritable(em: EntityManager, trialId: string) {
+  const [row] = (await em.query('SELECT status FROM trials WHERE id = $1', [trialId])) as { status: TrialStatus }[];
+  if (!row) throw AppError.notFound('Trial');
+  if (row.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to make changes.');
+}
+
+const allowedTransitions: Record<TrialStatus, TrialStatus[]> = { draft: ['active', 'closed'], active: ['closed', 'draft'], closed: ['active'] };
+
+export function trialsService(ctx: AppContext) {
+  const trials = ctx.ds.getRepository(TrialEntity);
+  const plots = ctx.ds.getRepository(PlotEntity);
+
+  async function loadRow(id: string): Promise<TrialRow> {
+    const rows = (await ctx.ds.query(`${trialSelect} WHERE t.id = $1`, [id])) as TrialRow[];
+    if (!rows[0]) throw AppError.notFound('Trial');
+    return rows[0];
+  }
+
+  return {
+    async list(ownerId: string, gardenId?: string): Promise<Trial[]> {
+      const rows = (await ctx.ds.query(`${trialSelect} WHERE t.owner_id = $1 AND ($2::uuid IS NULL OR t.garden_id = $2) ORDER BY t.planting_date DESC, t.title`, [
+        ownerId,
+        gardenId ?? null,
+      ])) as TrialRow[];
+      return rows.map((r) => presentTrial(r, 'owner'));
+    },
+
+    async get(id: string, access: 'owner' | 'reader'): Promise<Trial> {
+      return presentTrial(await loadRow(id), access);
+    },
+
+    async create(gardenId: string, ownerId: string, input: CreateTrialInput): Promise<Trial> {
+      const { identifiers } = await trials.insert({ ...input, gardenId, ownerId });
+      return this.get(identifiers[0]!.id as string, 'owner');
+    },
+
+    async update(id: string, actorId: string, input: UpdateTrialInput): Promise<Trial> {
+      await ctx.ds.transaction(async (tx) => {
+        await assertTrialWritable(tx, id);
+        const repo = tx.getRepository(TrialEntity);
+        const before = await repo.findOneByOrFail({ id });
+        // Check the merged record as a whole (e.g. an end date before the planting date).
+        const merged = createTrialInputSchema.safeParse({ ...before, ...input });
+        if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error));
+        if (Object.keys(input).length === 0) return;
+        await repo.update(id, input);
+        if (await mustAudit(tx, id)) {
+          const changes = diff(before as unknown as Record<string, unknown>, input as Record<string, unknown>);
+          if (Object.keys(changes).length) await writeAudit(tx, { trialId: id, actorId, action: 'update', entityType: 'trial', entityId: id, changes });
+        }
+      });
+      return this.get(id, 'owner');
+    },
+
+    async setStatus(id: string, actorId: string, status: TrialStatus): Promise<Trial> {
+      await ctx.ds.transaction(async (tx) => {
+        const [row] = (await tx.query('SELECT status FROM trials WHERE id = $1 FOR UPDATE', [id])) as { status: TrialStatus }[];
+        if (!row) throw AppError.notFound('Trial');
+        if (row.status === status) return;
+        if (!allowedTransitions[row.status].includes(status)) {
+          throw new AppError('conflict', `A ${row.status} trial cannot become ${status}.`);
+        }
+        await tx.query('UPDATE trials SET status = $2, updated_at = now() WHERE id = $1', [id, status]);
+        await writeAudit(tx, { trialId: id, actorId, action: 'status', entityType: 'trial', entityId: id, changes: { status: [row.status, status] } });
+      });
+      return this.get(id, 'owner');
+    },
+
+    async remove(id: string): Promise<void> {
+      const [{ shared }] = (await ctx.ds.query(`SELECT EXISTS (SELECT 1 FROM trial_shares WHERE trial_id = $1 AND withdrawn_at IS NULL) AS shared`, [id])) as [
+        { shared: boolean },
+      ];
+      if (shared) throw new AppError('conflict', 'This trial is shared with a cohort. Withdraw it from every cohort before deleting it.');
+      await trials.delete(id);
+    },
+
+    async listPlots(trialId: string): Promise<Plot[]> {
+      const rows = await plots.find({ where: { trialId }, order: { blockKey: 'ASC', label: 'ASC' } });
+      const pots = (await ctx.ds.query(`SELECT id, plot_id FROM pots WHERE plot_id = ANY($1::uuid[]) ORDER BY label`, [rows.map((r) => r.id)])) as { id: string; plot_id: string }[];
+      return rows.map((p) => presentPlot(p, pots.filter((x) => x.plot_id === p.id).map((x) => x.id)));
+    },
+
+    async createPlot(trialId: string, actorId: string, input: CreatePlotInput): Promise<Plot> {
+      return ctx.ds.transaction(async (tx) => {
+        await assertTrialWritable(tx, trialId);
+        await assertTreatmentKnown(tx, trialId, input.treatment);
+        try {
+          const { identifiers } = await tx.getRepository(PlotEntity).insert({ ...input, trialId });
+          const plot = await tx.getRepository(PlotEntity).findOneByOrFail({ id: identifiers[0]!.id as string });
+          if (await mustAudit(tx, trialId)) await writeAudit(tx, { trialId, actorId, action: 'create', entityType: 'plot', entityId: plot.id, changes: { ...input } });
+          return presentPlot(plot);
+        } catch (err) {
+          if ((err as { code?: string }).code === '23505') throw AppError.validation('Plot labels must differ within a trial.', [{ path: 'label', message: 'Another plot in this trial has this label.' }]);
+          throw err;
+        }
+      });
+    },
+
+    async updatePlot(plotId: string, actorId: string, input: UpdatePlotInput): Promise<Plot> {
+      return ctx.ds.transaction(async (tx) => {
+        const repo = tx.getRepository(PlotEntity);
+        const before = await repo.findOneByOrFail({ id: plotId });
+        await assertTrialWritable(tx, before.trialId);
+        if (input.treatment !== undefined) await assertTreatmentKnown(tx, before.trialId, input.treatment);
+        if (Object.keys(input).length) {
+          try {
+            await repo.update(plotId, input);
+          } catch (err) {
+            if ((err as { code?: string }).code === '23505') throw AppError.validation('Plot labels must differ within a trial.', [{ path: 'label', message: 'Another plot in this trial has this label.' }]);
+            throw err;
+          }
+        }
+        if (await mustAudit(tx, before.trialId)) {
+          const changes = diff(before as unknown as Record<string, unknown>, input as Record<string, unknown>);
+          if (Object.keys(changes).length) await writeAudit(tx, { trialId: before.trialId, actorId, action: 'update', entityType: 'plot', entityId: plotId, changes });
+        }
+        return presentPlot(await repo.findOneByOrFail({ id: plotId }));
+      });
+    },
+
+    async removePlot(plotId: string, actorId: string): Promise<void> {
+      await ctx.ds.transaction(async (tx) => {
+        const repo = tx.getRepository(PlotEntity);
+        const before = await repo.findOneByOrFail({ id: plotId });
+        await assertTrialWritable(tx, before.trialId);
+        if (await mustAudit(tx, before.trialId)) {
+          await writeAudit(tx, { trialId: before.trialId, actorId, action: 'delete', entityType: 'plot', entityId: plotId, changes: presentPlot(before) as unknown as Record<string, unknown> });
+        }
+        await repo.delete(plotId);
+      });
+    },
+
+    /** Randomises treatments within every pair or block and records the seed. */
+    async randomise(trialId: string, actorId: string, seed?: string): Promise<{ seed: string; plots: Plot[] }> {
+      const usedSeed = seed ?? randomBytes(6).toString('hex');
+      await ctx.ds.transaction(async (tx) => {
+        await assertTrialWritable(tx, trialId);
+        const trial = await tx.getRepository(TrialEntity).findOneByOrFail({ id: trialId });
+        const rows = await tx.getRepository(PlotEntity).findBy({ trialId });
+        const assignment = randomiseWithinBlocks(rows, trial.treatments, usedSeed);
+        for (const a of assignment) await tx.query('UPDATE plots SET treatment = $2 WHERE id = $1', [a.plotId, a.treatment]);
+        await tx.query('UPDATE trials SET randomisation_seed = $2, updated_at = now() WHERE id = $1', [trialId, usedSeed]);
+        if (await mustAudit(tx, trialId)) {
+          await writeAudit(tx, { trialId, actorId, action: 'update', entityType: 'trial', entityId: trialId, changes: { randomisationSeed: [trial.randomisationSeed, usedSeed] } });
+        }
+      });
+      return { seed: usedSeed, plots: await this.listPlots(trialId) };
+    },
+
+    async auditTrail(trialId: string) {
+      const rows = (await ctx.ds.query(
+        `SELECT a.id, a.at, a.action, a.entity_type, a.entity_id, a.changes, u.display_name AS actor
+           FROM audit_entries a LEFT JOIN users u ON u.id = a.actor_id
+          WHERE a.trial_id = $1 ORDER BY a.at DESC LIMIT 500`,
+        [trialId],
+      )) as { id: string; at: Date; action: string; entity_type: string; entity_id: string; changes: unknown; actor: string | null }[];
+      return rows.map((r) => ({ id: r.id, at: r.at.toISOString(), action: r.action, entityType: r.entity_type, entityId: r.entity_id, changes: r.changes, actor: r.actor }));
+    },
+
+    async listShares(trialId: string) {
+      const rows = (await ctx.ds.query(
+        `SELECT s.cohort_id, c.name, s.shared_at, s.withdrawn_at FROM trial_shares s JOIN cohorts c ON c.id = s.cohort_id WHERE s.trial_id = $1 ORDER BY s.shared_at`,
+        [trialId],
+      )) as { cohort_id: string; name: string; shared_at: Date; withdrawn_at: Date | null }[];
+      return rows.map((r) => ({ cohortId: r.cohort_id, cohortName: r.name, sharedAt: r.shared_at.toISOString(), withdrawnAt: r.withdrawn_at?.toISOString() ?? null }));
+    },
+
+    /** Shares a trial into a cohort the owner contributes to (re-sharing a withdrawn one restores it). */
+    async share(trialId: string, userId: string, cohortId: string) {
+      const [member] = (await ctx.ds.query(`SELECT role FROM cohort_memberships WHERE cohort_id = $1 AND user_id = $2`, [cohortId, userId])) as { role: string }[];
+      if (!member) throw AppError.validation('You can share only into cohorts you belong to.', [{ path: 'cohortId', message: 'You are not a member of that cohort.' }]);
+      if (member.role !== 'contributor') throw AppError.forbidden('Observers read a cohort; they do not share trials into it. Ask the lead to make you a contributor.');
+      await ctx.ds.query(
+        `INSERT INTO trial_shares (trial_id, cohort_id) VALUES ($1, $2)
+         ON CONFLICT (trial_id, cohort_id) DO UPDATE SET withdrawn_at = NULL, shared_at = CASE WHEN trial_shares.withdrawn_at IS NULL THEN trial_shares.shared_at ELSE now() END`,
+        [trialId, cohortId],
+      );
+      return this.listShares(trialId);
+    },
+
+    async withdraw(trialId: string, cohortId: string) {
+      const res = (await ctx.ds.query(`UPDATE trial_shares SET withdrawn_at = now() WHERE trial_id = $1 AND cohort_id = $2 AND withdrawn_at IS NULL RETURNING id`, [
+        trialId,
+        cohortId,
+      ])) as [unknown[], number];
+      if (res[1] === 0) throw AppError.notFound('Share');
+      return this.listShares(trialId);
+    },
+  };
+}
+
+async function assertTreatmentKnown(em: EntityManager, trialId: string, treatment: string | null | undefined) {
+  if (treatment === null || treatment === undefined) return;
+  const [t] = (await em.query('SELECT treatments FROM trials WHERE id = $1', [trialId])) as { treatments: string[] }[];
+  if (!t?.treatments.map((x) => x.toLowerCase()).includes(treatment.toLowerCase())) {
+    throw AppError.validation('That treatment is not part of this trial.', [{ path: 'treatment', message: `Choose one of: ${t?.treatments.join(', ')}.` }]);
+  }
+}

@@ -1,0 +1,70 @@
+import { z } from 'zod';
+import { optionalText } from './common';
+
+/** The 12 USDA soil texture classes (USDA Soil Survey Manual, texture triangle). */
+export const soilTextures = [
+  'sand',
+  'loamy_sand',
+  'sandy_loam',
+  'loam',
+  'silt_loam',
+  'silt',
+  'sandy_clay_loam',
+  'clay_loam',
+  'silty_clay_loam',
+  'sandy_clay',
+  'silty_clay',
+  'clay',
+] as const;
+export const soilTextureSchema = z.enum(soilTextures);
+export type SoilTexture = z.infer<typeof soilTextureSchema>;
+
+export const soilTextureLabels: Record<SoilTexture, string> = {
+  sand: 'Sand',
+  loamy_sand: 'Loamy sand',
+  sandy_loam: 'Sandy loam',
+  loam: 'Loam',
+  silt_loam: 'Silt loam',
+  silt: 'Silt',
+  sandy_clay_loam: 'Sandy clay loam',
+  clay_loam: 'Clay loam',
+  silty_clay_loam: 'Silty clay loam',
+  sandy_clay: 'Sandy clay',
+  silty_clay: 'Silty clay',
+  clay: 'Clay',
+};
+
+/** Locations are kept to 0.1° (about 11 km): enough for sun and season, not enough to find a garden. */
+export function coarsenDegrees(v: number): number {
+  return Math.round(v * 10) / 10;
+}
+
+export const gardenInputSchema = z.object({
+  name: z.string().trim().min(1, 'Give the garden a name.').max(100),
+  latitudeDeg: z.number().min(-90, 'Latitude is between −90 and 90.').max(90, 'Latitude is between −90 and 90.').transform(coarsenDegrees),
+  longitudeDeg: z.number().min(-180, 'Longitude is between −180 and 180.').max(180, 'Longitude is between −180 and 180.').transform(coarsenDegrees),
+  elevationM: z.number().min(-430, 'Elevation below the Dead Sea shore is not plausible.').max(5000, 'Elevation above 5000 m is not plausible for a garden.'),
+  soilTexture: soilTextureSchema,
+  /** Coastal sites use kRs 0.19 in FAO-56's radiation estimate; interior 0.16. */
+  coastal: z.boolean().default(false),
+  notes: optionalText(4000),
+});
+export const createGardenInputSchema = gardenInputSchema;
+export const updateGardenInputSchema = gardenInputSchema.partial();
+export type CreateGardenInput = z.infer<typeof createGardenInputSchema>;
+export type UpdateGardenInput = z.infer<typeof updateGardenInputSchema>;
+
+export const gardenSchema = z.object({
+  id: z.uuid(),
+  name: z.string(),
+  latitudeDeg: z.number(),
+  longitudeDeg: z.number(),
+  elevationM: z.number(),
+  soilTexture: soilTextureSchema,
+  coastal: z.boolean(),
+  notes: z.string(),
+  trialCount: z.number(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Garden = z.infer<typeof gardenSchema>;
