@@ -5,6 +5,7 @@ import type { AppContext } from '../context';
 import { access } from '../http/access';
 import { handle, route, type RouteSpec } from '../http/route';
 import { validate } from '../middleware/validate';
+import { analysisService } from '../services/analysis.service';
 import { trialsService } from '../services/trials.service';
 
 const listTrialsQuery = z.object({ gardenId: z.uuid().optional() });
@@ -12,6 +13,7 @@ const cohortParam = z.object({ trialId: z.uuid(), cohortId: z.uuid() });
 
 export function trialRoutes(ctx: AppContext): RouteSpec[] {
   const svc = trialsService(ctx);
+  const analysis = analysisService(ctx);
   const id = (v: unknown) => String(v);
   return [
     route(
@@ -56,6 +58,12 @@ export function trialRoutes(ctx: AppContext): RouteSpec[] {
       access.owner('trial', 'trialId'),
       validate(trialStatusInputSchema),
       handle(async (req, res) => res.json({ data: await svc.setStatus(id(req.params.trialId), req.user!.id, req.body.status) })),
+    ),
+    route(
+      'get',
+      '/trials/:trialId/analysis',
+      access.reader('trial', 'trialId'),
+      handle(async (req, res) => res.json({ data: await analysis.forTrial(id(req.params.trialId)) })),
     ),
     route('get', '/trials/:trialId/audit', access.owner('trial', 'trialId'), handle(async (req, res) => res.json({ data: await svc.auditTrail(id(req.params.trialId)) }))),
     route('get', '/trials/:trialId/plots', access.reader('trial', 'trialId'), handle(async (req, res) => res.json({ data: await svc.listPlots(id(req.params.trialId)) }))),

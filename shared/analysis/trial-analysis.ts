@@ -1,0 +1,377 @@
+/**
+ * Everything Seepwise computes for one trial, from aggregates the server has already summed in
+ * SQL (per-plot totals, per-plot daily litres, weather days, daily moisture means). Pure: no
+ * I/O, no clock; the same function can run in the browser.
+ */
+import { CROP_COEFFICIENTS, etc, kcForDay, type CropCoefficients, type CropId } from '../agronomy/crop-coefficients';
+import { et0ForDay, type Et0Method } from '../agronomy/et0';
+import { describePairs, pairedComparison, type PairDescription, type PairedComparison } from './paired';
+import { depthMm, harvestRatio, waterSavingPercent, waterUseEfficiency } from './water';
+
+export interface PlotAggregate {
+  id: string;
+  label: string;
+  treatment: string | null;
+  blockKey: string;
+  areaM2: number;
+  plantCount: number;
+  waterL: number;
+  ollaL: number;
+  surfaceL: number;
+  waterEvents: number;
+  harvestKg: number;
+  marketableKg: number;
+  harvests: number;
+}
+
+export interface WeatherAggregate {
+  day: string;
+  tMinC: number;
+  tMaxC: number;
+  rainMm: number;
+  rhMinPct: number | null;
+  rhMaxPct: number | null;
+  windSpeedMs: number | null;
+  windHeightM: number;
+  sunshineHours: number | null;
+  solarRadiationMJ: number | null;
+}
+
+export interface TrialAnalysisInput {
+  trial: {
+    crop: string;
+    plantingDate: string;
+    endDate: string | null;
+    treatments: string[];
+    kcOverrides: { ini?: number; mid?: number; end?: number };
+    stressThresholds: Record<string, number>;
+  };
+  garden: { latitudeDeg: number; elevationM: number; coastal: boolean };
+  plots: PlotAggregate[];
+  /** Litres per plot per calendar day (UTC). */
+  dailyWater: { plotId: string; day: string; litres: number }[];
+  weather: WeatherAggregate[];
+  /** Daily mean soil moisture per treatment and method. */
+  moisture: { day: string; treatment: string; method: string; mean: number; n: number }[];
+  /** The last day to count (today, or the trial's end). */
+  asOf: string;
+  confidence?: number;
+}
+
+export type PairedMetric =
+  | { kind: 'test'; n: number; result: PairedComparison }
+  | { kind: 'descriptive'; n: number; description: PairDescription | null; reason: string };
+
+export interface PairRow {
+  blockKey: string;
+  treatmentPlot: string;
+  controlPlot: string;
+  waterMm: [number, number];
+  harvestKgPerM2: [number, number];
+  wueKgPerM3: [number | null, number | null];
+}
+
+export interface Comparison {
+  treatment: string;
+  control: string;
+  pairs: PairRow[];
+  /** Season totals across all plots of each treatment. */
+  waterSavingPercent: number | null;
+  harvestRatio: number | null;
+  wueRatio: number | null;
+  metrics: { waterMm: PairedMetric; harvestKgPerM2: PairedMetric; wueKgPerM3: PairedMetric };
+}
+
+export interface TreatmentSummary {
+  treatment: string;
+  plotCount: number;
+  areaM2: number;
+  waterL: number;
+  depthMm: number;
+  harvestKg: number;
+  harvestKgPerM2: number;
+  wueKgPerM3: number | null;
+}
+
+export interface PlotSummary extends PlotAggregate {
+  depthMm: number;
+  harvestKgPerM2: number;
+  wueKgPerM3: number | null;
+}
+
+export interface WeekRow {
+  weekStart: string;
+  et0Mm: number;
+  etcMm: number | null;
+  rainMm: number;
+  appliedMm: Record<string, number>;
+}
+
+export interface TrialAnalysis {
+  plots: PlotSummary[];
+  treatments: TreatmentSummary[];
+  comparisons: Comparison[];
+  cumulative: { plotId: string; label: string; treatment: string | null; day: string; cumulativeL: number }[];
+  cropWater: {
+    weatherDays: number;
+    methods: Record<Et0Method, number>;
+    kc: { ini: number; mid: number; end: number } | null;
+    totalEt0Mm: number;
+    totalEtcMm: number | null;
+    totalRainMm: number;
+    weekly: WeekRow[];
+    /** Applied water as a share of ETc over the days with weather, per treatment. */
+    appliedShareOfEtc: Record<string, number | null>;
+  };
+  moisture: {
+    series: { day: string; treatment: string; method: string; value: number }[];
+    stress: { treatment: string; method: string; threshold: number; daysBelow: number; daysMeasured: number }[];
+  };
+  warnings: string[];
+}
+
+const DAY_MS = 86_400_000;
+
+function daysBetween(a: string, b: string): number {
+  return Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / DAY_MS);
+}
+
+/** Monday of the ISO week containing the day. */
+export function weekStart(day: string): string {
+  const d = new Date(`${day}T00:00:00Z`);
+  const dow = (d.getUTCDay() + 6) % 7;
+  return new Date(d.getTime() - dow * DAY_MS).toISOString().slice(0, 10);
+}
+
+function safeWue(kg: number, litres: number): number | null {
+  return litres > 0 ? waterUseEfficiency(kg, litres) : null;
+}
+
+/** Paired test when there are at least two complete pairs; otherwise the plain description and why. */
+function pairedMetric(t: (number | null)[], c: (number | null)[], confidence: number): PairedMetric {
+  const tt: number[] = [];
+  const cc: number[] = [];
+  t.forEach((v, i) => {
+    const w = c[i];
+    if (v !== null && w !== null && w !== undefined) {
+      tt.push(v);
+      cc.push(w);
+    }
+  });
+  if (tt.length === 0) return { kind: 'descriptive', n: 0, description: null, reason: 'No complete pair has this measurement yet.' };
+  if (tt.length === 1) {
+    return {
+      kind: 'descriptive',
+      n: 1,
+      description: describePairs(tt, cc),
+      reason: 'With a single pair there is no variation between replicates, so no test across pairs is possible. Days are not replicates.',
+    };
+  }
+  return { kind: 'test', n: tt.length, result: pairedComparison(tt, cc, { confidence }) };
+}
+
+function cropKc(crop: string, overrides: TrialAnalysisInput['trial']['kcOverrides']): CropCoefficients | null {
+  const base = CROP_COEFFICIENTS[crop as CropId];
+  if (!base) return null;
+  return {
+    ...base,
+    kcIni: overrides.ini ?? base.kcIni,
+    kcMid: overrides.mid ?? base.kcMid,
+    kcEnd: overrides.end !== undefined ? { min: overrides.end, max: overrides.end } : base.kcEnd,
+  };
+}
+
+export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
+  const confidence = input.confidence ?? 0.95;
+  const warnings: string[] = [];
+  const plots: PlotSummary[] = input.plots.map((p) => ({
+    ...p,
+    depthMm: depthMm(p.waterL, p.areaM2),
+    harvestKgPerM2: p.harvestKg / p.areaM2,
+    wueKgPerM3: safeWue(p.harvestKg, p.waterL),
+  }));
+  if (plots.some((p) => p.treatment === null)) warnings.push('Some plots have no treatment yet: assign treatments (at random) before logging.');
+  if (plots.length && plots.every((p) => p.harvests === 0)) warnings.push('No harvests logged yet: water-use efficiency and harvest comparisons will appear after the first pick.');
+
+  // Per treatment totals.
+  const treatmentNames = input.trial.treatments;
+  const treatments: TreatmentSummary[] = treatmentNames.map((name) => {
+    const own = plots.filter((p) => p.treatment === name);
+    const areaM2 = own.reduce((s, p) => s + p.areaM2, 0);
+    const waterL = own.reduce((s, p) => s + p.waterL, 0);
+    const harvestKg = own.reduce((s, p) => s + p.harvestKg, 0);
+    return {
+      treatment: name,
+      plotCount: own.length,
+      areaM2,
+      waterL,
+      depthMm: areaM2 > 0 ? depthMm(waterL, areaM2) : 0,
+      harvestKg,
+      harvestKgPerM2: areaM2 > 0 ? harvestKg / areaM2 : 0,
+      wueKgPerM3: safeWue(harvestKg, waterL),
+    };
+  });
+
+  // Comparisons: every treatment against the control (surface watering when present).
+  const control = treatmentNames.includes('surface') ? 'surface' : treatmentNames[treatmentNames.length - 1]!;
+  const comparisons: Comparison[] = treatmentNames
+    .filter((t) => t !== control)
+    .map((treatment) => {
+      const blocks = [...new Set(plots.map((p) => p.blockKey))].sort((a, b) => a.localeCompare(b, 'en', { numeric: true }));
+      const pairs: PairRow[] = [];
+      for (const blockKey of blocks) {
+        const tp = plots.find((p) => p.blockKey === blockKey && p.treatment === treatment);
+        const cp = plots.find((p) => p.blockKey === blockKey && p.treatment === control);
+        if (!tp || !cp) continue;
+        pairs.push({
+          blockKey,
+          treatmentPlot: tp.label,
+          controlPlot: cp.label,
+          waterMm: [tp.depthMm, cp.depthMm],
+          harvestKgPerM2: [tp.harvestKgPerM2, cp.harvestKgPerM2],
+          wueKgPerM3: [tp.wueKgPerM3, cp.wueKgPerM3],
+        });
+      }
+      const ts = treatments.find((x) => x.treatment === treatment)!;
+      const cs = treatments.find((x) => x.treatment === control)!;
+      const hasHarvest = pairs.some((p) => p.harvestKgPerM2[0] > 0 || p.harvestKgPerM2[1] > 0);
+      return {
+        treatment,
+        control,
+        pairs,
+        // Totals compare depths (mm), so plots of different size are compared fairly.
+        waterSavingPercent: cs.depthMm > 0 ? waterSavingPercent(ts.depthMm, cs.depthMm) : null,
+        harvestRatio: cs.harvestKgPerM2 > 0 ? harvestRatio(ts.harvestKgPerM2, cs.harvestKgPerM2) : null,
+        wueRatio: ts.wueKgPerM3 !== null && cs.wueKgPerM3 !== null && cs.wueKgPerM3 > 0 ? ts.wueKgPerM3 / cs.wueKgPerM3 : null,
+        metrics: {
+          waterMm: pairedMetric(
+            pairs.map((p) => p.waterMm[0]),
+            pairs.map((p) => p.waterMm[1]),
+            confidence,
+          ),
+          harvestKgPerM2: hasHarvest
+            ? pairedMetric(
+                pairs.map((p) => p.harvestKgPerM2[0]),
+                pairs.map((p) => p.harvestKgPerM2[1]),
+                confidence,
+              )
+            : { kind: 'descriptive', n: pairs.length, description: null, reason: 'No harvest logged yet.' },
+          wueKgPerM3: pairedMetric(
+            pairs.map((p) => p.wueKgPerM3[0]),
+            pairs.map((p) => p.wueKgPerM3[1]),
+            confidence,
+          ),
+        },
+      };
+    });
+  if (comparisons.every((c) => c.pairs.length === 0) && plots.length) warnings.push(`No pair or block holds both a "${control}" plot and a treated plot yet.`);
+
+  // Cumulative water per plot (daily totals arrive summed; running sums here).
+  const byPlot = new Map(plots.map((p) => [p.id, p]));
+  const running = new Map<string, number>();
+  const cumulative = [...input.dailyWater]
+    .sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : a.plotId.localeCompare(b.plotId)))
+    .map((r) => {
+      const total = (running.get(r.plotId) ?? 0) + r.litres;
+      running.set(r.plotId, total);
+      const p = byPlot.get(r.plotId);
+      return { plotId: r.plotId, label: p?.label ?? '', treatment: p?.treatment ?? null, day: r.day, cumulativeL: total };
+    });
+
+  // Crop water need: ET0 per weather day (FAO-56), Kc by stage, ETc; weekly against water applied.
+  const kcCrop = cropKc(input.trial.crop, input.trial.kcOverrides);
+  if (!kcCrop) warnings.push('No FAO-56 crop coefficients for this crop: ET0 is shown, but not the crop water need (ETc).');
+  const methods: Record<Et0Method, number> = { 'penman-monteith': 0, hargreaves: 0 };
+  const weeks = new Map<string, WeekRow>();
+  const weekFor = (day: string) => {
+    const key = weekStart(day);
+    let w = weeks.get(key);
+    if (!w) {
+      w = { weekStart: key, et0Mm: 0, etcMm: kcCrop ? 0 : null, rainMm: 0, appliedMm: Object.fromEntries(treatmentNames.map((t) => [t, 0])) };
+      weeks.set(key, w);
+    }
+    return w;
+  };
+  let totalEt0 = 0;
+  let totalEtc = 0;
+  let totalRain = 0;
+  const weatherDaysInTrial = input.weather.filter((w) => w.day >= input.trial.plantingDate && w.day <= input.asOf);
+  const weatherDaySet = new Set(weatherDaysInTrial.map((w) => w.day));
+  for (const w of weatherDaysInTrial) {
+    const r = et0ForDay(
+      {
+        date: w.day,
+        tMinC: w.tMinC,
+        tMaxC: w.tMaxC,
+        rhMinPct: w.rhMinPct ?? undefined,
+        rhMaxPct: w.rhMaxPct ?? undefined,
+        windSpeedMs: w.windSpeedMs ?? undefined,
+        windHeightM: w.windHeightM,
+        sunshineHours: w.sunshineHours ?? undefined,
+        solarRadiationMJ: w.solarRadiationMJ ?? undefined,
+      },
+      { latitudeDeg: input.garden.latitudeDeg, elevationM: input.garden.elevationM, coastal: input.garden.coastal },
+    );
+    methods[r.method] += 1;
+    const week = weekFor(w.day);
+    week.et0Mm += r.et0Mm;
+    week.rainMm += w.rainMm;
+    totalEt0 += r.et0Mm;
+    totalRain += w.rainMm;
+    if (kcCrop) {
+      const { kc } = kcForDay(kcCrop, daysBetween(input.trial.plantingDate, w.day));
+      const e = etc(r.et0Mm, kc);
+      week.etcMm = (week.etcMm ?? 0) + e;
+      totalEtc += e;
+    }
+  }
+  if (weatherDaysInTrial.length === 0) warnings.push('No weather days logged for this season: reference evapotranspiration (ET0) needs at least daily minimum and maximum temperatures.');
+
+  // Applied depth per treatment per week, and over the days that have weather (for the share of ETc).
+  const areaByTreatment = new Map(treatments.map((t) => [t.treatment, t.areaM2]));
+  const appliedOnWeatherDays = new Map<string, number>();
+  for (const r of input.dailyWater) {
+    const p = byPlot.get(r.plotId);
+    if (!p?.treatment) continue;
+    const area = areaByTreatment.get(p.treatment) ?? 0;
+    if (area <= 0) continue;
+    const mm = depthMm(r.litres, area);
+    const week = weekFor(r.day);
+    week.appliedMm[p.treatment] = (week.appliedMm[p.treatment] ?? 0) + mm;
+    if (weatherDaySet.has(r.day)) appliedOnWeatherDays.set(p.treatment, (appliedOnWeatherDays.get(p.treatment) ?? 0) + mm);
+  }
+  const appliedShareOfEtc: Record<string, number | null> = {};
+  for (const t of treatmentNames) appliedShareOfEtc[t] = kcCrop && totalEtc > 0 ? (appliedOnWeatherDays.get(t) ?? 0) / totalEtc : null;
+
+  // Soil moisture: each method on its own scale; stress days against the grower's thresholds.
+  const series = input.moisture.map((m) => ({ day: m.day, treatment: m.treatment, method: m.method, value: m.mean }));
+  const stress: TrialAnalysis['moisture']['stress'] = [];
+  for (const [method, threshold] of Object.entries(input.trial.stressThresholds)) {
+    for (const t of treatmentNames) {
+      const days = input.moisture.filter((m) => m.method === method && m.treatment === t);
+      if (!days.length) continue;
+      // Tensiometers read suction: drier soil gives a higher number.
+      const below = days.filter((m) => (method === 'tensiometer' ? m.mean > threshold : m.mean < threshold)).length;
+      stress.push({ treatment: t, method, threshold, daysBelow: below, daysMeasured: days.length });
+    }
+  }
+
+  return {
+    plots,
+    treatments,
+    comparisons,
+    cumulative,
+    cropWater: {
+      weatherDays: weatherDaysInTrial.length,
+      methods,
+      kc: kcCrop ? { ini: kcCrop.kcIni, mid: kcCrop.kcMid, end: (kcCrop.kcEnd.min + kcCrop.kcEnd.max) / 2 } : null,
+      totalEt0Mm: totalEt0,
+      totalEtcMm: kcCrop ? totalEtc : null,
+      totalRainMm: totalRain,
+      weekly: [...weeks.values()].sort((a, b) => a.weekStart.localeCompare(b.weekStart)),
+      appliedShareOfEtc,
+    },
+    moisture: { series, stress },
+    warnings,
+  };
+}

@@ -1,0 +1,90 @@
+import { describe, expect, it } from 'vitest';
+import { describeComparison } from '@shared/analysis/narrative';
+import { analyseTrial, weekStart, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
+
+// MASS::shoes (Box, Hunter & Hunter 1978, p. 100): material A and B worn by the same boy.
+const shoesA = [13.2, 8.2, 10.9, 14.3, 10.7, 6.6, 9.5, 10.8, 8.8, 13.3];
+const shoesB = [14.0, 8.8, 11.2, 14.2, 11.8, 6.4, 9.8, 11.3, 9.3, 13.6];
+
+function input(pairs: [number, number][], extra: Partial<TrialAnalysisInput> = {}): TrialAnalysisInput {
+  const plots = pairs.flatMap(([o, s], i) => [
+    { id: `o${i}`, label: `${i}o`, treatment: 'olla', blockKey: `B${i}`, areaM2: 2, plantCount: 2, waterL: o * 2, ollaL: o * 2, surfaceL: 0, waterEvents: 1, harvestKg: 1, marketableKg: 1, harvests: 1 },
+    { id: `s${i}`, label: `${i}s`, treatment: 'surface', blockKey: `B${i}`, areaM2: 2, plantCount: 2, waterL: s * 2, ollaL: 0, surfaceL: s * 2, waterEvents: 1, harvestKg: 1, marketableKg: 1, harvests: 1 },
+  ]);
+  return {
+    trial: { crop: 'tomato', plantingDate: '2026-05-01', endDate: null, treatments: ['olla', 'surface'], kcOverrides: {}, stressThresholds: {} },
+    garden: { latitudeDeg: 35, elevationM: 1500, coastal: false },
+    plots,
+    dailyWater: [],
+    weather: [],
+    moisture: [],
+    asOf: '2026-09-30',
+    ...extra,
+  };
+}
+
+describe('analyseTrial', () => {
+  it('compares water depths per pair with the paired t-test (MASS shoes: t = -3.3489, df 9, p = 0.008539)', () => {
+    // Depth in mm = litres / m²; plots of 2 m² carry twice the value in litres.
+    const r = analyseTrial(input(shoesA.map((a, i) => [a, shoesB[i]!])));
+    const m = r.comparisons[0]!.metrics.waterMm;
+    expect(m.kind).toBe('test');
+    if (m.kind !== 'test') return;
+    expect(m.result.t).toBeCloseTo(-3.3489, 4); // R t.test(A, B, paired = TRUE), REFERENCES.md
+    expect(m.result.pValue).toBeCloseTo(0.008539, 6);
+    expect(m.result.ci[0]).toBeCloseTo(-0.6869539, 6);
+    expect(m.result.ci[1]).toBeCloseTo(-0.1330461, 6);
+  });
+
+  it('never pairs days: a single pair stays descriptive however many logs it has', () => {
+    const r = analyseTrial(input([[30, 70]], { dailyWater: Array.from({ length: 40 }, (_, d) => ({ plotId: 'o0', day: `2026-06-${String((d % 28) + 1).padStart(2, '0')}`, litres: 1 })) }));
+    expect(r.comparisons[0]!.metrics.waterMm.kind).toBe('descriptive');
+  });
+
+  it('counts stress days per method on its own scale (tensiometer: higher suction is drier)', () => {
+    const r = analyseTrial(
+      input([[1, 2]], {
+        trial: { crop: 'tomato', plantingDate: '2026-05-01', endDate: null, treatments: ['olla', 'surface'], kcOverrides: {}, stressThresholds: { vwc: 15, tensiometer: 50 } },
+        moisture: [
+          { day: '2026-06-01', treatment: 'olla', method: 'vwc', mean: 18, n: 1 },
+          { day: '2026-06-02', treatment: 'olla', method: 'vwc', mean: 12, n: 1 },
+          { day: '2026-06-01', treatment: 'surface', method: 'tensiometer', mean: 60, n: 2 },
+          { day: '2026-06-02', treatment: 'surface', method: 'tensiometer', mean: 30, n: 2 },
+        ],
+      }),
+    );
+    expect(r.moisture.stress).toEqual([
+      { treatment: 'olla', method: 'vwc', threshold: 15, daysBelow: 1, daysMeasured: 2 },
+      { treatment: 'surface', method: 'tensiometer', threshold: 50, daysBelow: 1, daysMeasured: 2 },
+    ]);
+  });
+
+  it('puts ISO weeks on Mondays', () => {
+    expect(weekStart('2026-07-06')).toBe('2026-07-06'); // a Monday
+    expect(weekStart('2026-07-12')).toBe('2026-07-06'); // the Sunday after
+  });
+});
+
+describe('describeComparison', () => {
+  it('states n, the interval, both tests and the one-site caveat, in the reader’s units', () => {
+    const r = analyseTrial(input(shoesA.map((a, i) => [a, shoesB[i]!])));
+    const en = describeComparison(r.comparisons[0]!, { lang: 'en', units: 'metric' }).join(' ');
+    expect(en).toMatch(/Across 10 pairs/);
+    expect(en).toMatch(/95% confidence interval/);
+    expect(en).toMatch(/paired t-test p = 0\.009/);
+    expect(en).toMatch(/Wilcoxon signed-rank p = /);
+    expect(en).toMatch(/one site/);
+    const us = describeComparison(r.comparisons[0]!, { lang: 'en', units: 'us' }).join(' ');
+    expect(us).toMatch(/ in /);
+    const es = describeComparison(r.comparisons[0]!, { lang: 'es', units: 'metric' }).join(' ');
+    expect(es).toMatch(/En 10 pares/);
+  });
+
+  it('with one pair says plainly that no test is possible', () => {
+    const r = analyseTrial(input([[30, 70]]));
+    const text = describeComparison(r.comparisons[0]!, { lang: 'en', units: 'metric' }).join(' ');
+    expect(text).toMatch(/single pair/);
+    expect(text).toMatch(/No test across replicates is possible/);
+    expect(text).toMatch(/57% saving/);
+  });
+});
