@@ -1,21 +1,51 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { createBrowserRouter } from 'react-router-dom';
+import { createBrowserRouter, type LoaderFunctionArgs } from 'react-router-dom';
+import type { Role } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
+import { usersQueryOptions } from '@/features/admin/api/get-users';
+import { healthQueryOptions } from '@/features/admin/api/get-health';
+import { outboxQueryOptions } from '@/features/admin/api/get-outbox';
 import { sessionQueryOptions } from '@/features/auth/api/get-session';
+import { cohortQueryOptions } from '@/features/cohorts/api/get-cohort';
+import { cohortMembersQueryOptions } from '@/features/cohorts/api/get-cohort-members';
+import { cohortsQueryOptions } from '@/features/cohorts/api/get-cohorts';
+import { AccountPage } from './routes/account';
+import { AdminOutboxPage, AdminPage, usersParamsFrom } from './routes/admin';
 import { ForgotPasswordPage, ResetPasswordPage, SignInPage, SignUpPage, VerifyEmailPage } from './routes/auth-pages';
-import { RedirectIfSignedIn, RequireAuth } from './routes/guards';
+import { CohortPage } from './routes/cohort';
+import { CohortsPage } from './routes/cohorts';
+import { RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
 import { HomePage } from './routes/home';
+import { JoinPage } from './routes/join';
 import { NotFoundPage } from './routes/not-found';
+import { RouteErrorPage } from './routes/route-error';
 
 export function createAppRouter(queryClient: QueryClient) {
   const sessionLoader = async () => {
     await queryClient.ensureQueryData(sessionQueryOptions());
     return null;
   };
+
+  /**
+   * Starts a page's data before it renders, for signed-in callers with the right role. A failure
+   * is left in the query cache for the page to explain (not found, no access), never thrown here.
+   */
+  const prefetch =
+    (load: (args: LoaderFunctionArgs) => Promise<unknown>[], roles?: Role[]) =>
+    async (args: LoaderFunctionArgs) => {
+      const session = await queryClient.ensureQueryData(sessionQueryOptions());
+      const role = session.user?.role;
+      if (!role || (roles && !roles.includes(role))) return null;
+      await Promise.all(load(args).map((p) => p.catch(() => undefined)));
+      return null;
+    };
+  const ensure = queryClient.ensureQueryData.bind(queryClient);
+
   return createBrowserRouter([
     {
       loader: sessionLoader,
       hydrateFallbackElement: <p className="p-8">Loading…</p>,
+      errorElement: <RouteErrorPage />,
       children: [
         {
           element: <RedirectIfSignedIn />,
@@ -28,8 +58,32 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.resetPassword, element: <ResetPasswordPage /> },
         { path: paths.verifyEmail, element: <VerifyEmailPage /> },
         {
+          element: <ShellIfSignedIn />,
+          children: [{ path: paths.joinCohort, element: <JoinPage /> }],
+        },
+        {
           element: <RequireAuth />,
-          children: [{ path: paths.home, element: <HomePage /> }],
+          children: [
+            { path: paths.home, element: <HomePage />, loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
+            { path: paths.account, element: <AccountPage /> },
+            { path: paths.cohorts, element: <CohortsPage />, loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
+            {
+              path: paths.cohort(':cohortId'),
+              element: <CohortPage />,
+              loader: prefetch(({ params }) => [ensure(cohortQueryOptions(params.cohortId!)), ensure(cohortMembersQueryOptions(params.cohortId!))]),
+            },
+          ],
+        },
+        {
+          element: <RequireAuth roles={['admin']} />,
+          children: [
+            {
+              path: paths.admin,
+              element: <AdminPage />,
+              loader: prefetch(({ request }) => [ensure(healthQueryOptions()), ensure(usersQueryOptions(usersParamsFrom(new URL(request.url).searchParams)))], ['admin']),
+            },
+            { path: paths.adminOutbox, element: <AdminOutboxPage />, loader: prefetch(() => [ensure(outboxQueryOptions())], ['admin']) },
+          ],
         },
         { path: '*', element: <NotFoundPage /> },
       ],

@@ -31,7 +31,13 @@ export function setCsrfToken(token: string | null) {
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
-async function request<T>(method: Method, url: string, body?: unknown, init: RequestInit = {}): Promise<T> {
+/** A successful response body: the data and, for lists, paging or availability facts. */
+export interface ApiEnvelope<T, M = Record<string, unknown>> {
+  data: T;
+  meta?: M;
+}
+
+async function requestEnvelope<T, M>(method: Method, url: string, body?: unknown, init: RequestInit = {}): Promise<ApiEnvelope<T, M>> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
   if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
@@ -48,7 +54,7 @@ async function request<T>(method: Method, url: string, body?: unknown, init: Req
   } catch {
     throw new ApiRequestError(0, 'network_error', 'Could not reach Seepwise. Check your connection and try again.');
   }
-  if (res.status === 204) return undefined as T;
+  if (res.status === 204) return { data: undefined as T };
   const text = await res.text();
   let json: unknown = null;
   try {
@@ -60,11 +66,17 @@ async function request<T>(method: Method, url: string, body?: unknown, init: Req
     const err = (json as ApiError | null)?.error;
     throw new ApiRequestError(res.status, err?.code ?? 'http_error', err?.message ?? `Request failed (${res.status}).`, err?.details);
   }
-  return (json as { data: T }).data;
+  return json as ApiEnvelope<T, M>;
+}
+
+async function request<T>(method: Method, url: string, body?: unknown, init?: RequestInit): Promise<T> {
+  return (await requestEnvelope<T, unknown>(method, url, body, init)).data;
 }
 
 export const api = {
   get: <T>(url: string, init?: RequestInit) => request<T>('GET', url, undefined, init),
+  /** GET keeping `meta` (totals and pages of a list). */
+  getWithMeta: <T, M>(url: string, init?: RequestInit) => requestEnvelope<T, M>('GET', url, undefined, init),
   post: <T>(url: string, body?: unknown) => request<T>('POST', url, body ?? {}),
   patch: <T>(url: string, body: unknown) => request<T>('PATCH', url, body),
   put: <T>(url: string, body: unknown) => request<T>('PUT', url, body),

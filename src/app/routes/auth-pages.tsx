@@ -7,12 +7,8 @@ import { useVerifyEmail } from '@/features/auth/api/auth-mutations';
 import { RequestResetForm, ResetPasswordForm } from '@/features/auth/components/password-reset-forms';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
 import { SignUpForm } from '@/features/auth/components/sign-up-form';
+import { safeNext } from '@/lib/safe-next';
 import { SESSION_EXPIRED_FLAG } from '../query-client';
-
-/** Only same-site paths are followed after sign-in. */
-function safeNext(next: string | null) {
-  return next && next.startsWith('/') && !next.startsWith('//') ? next : paths.home;
-}
 
 export function SignInPage() {
   const [params] = useSearchParams();

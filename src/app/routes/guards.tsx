@@ -1,9 +1,10 @@
-import { Navigate, Outlet, useLocation } from 'react-router-dom';
+import { Navigate, Outlet, useLocation, useSearchParams } from 'react-router-dom';
 import type { Account } from '@shared/schemas/auth';
 import { AppShell } from '@/components/layout/app-shell';
 import { paths } from '@/config/paths';
 import { useSignOut } from '@/features/auth/api/auth-mutations';
 import { useSession } from '@/features/auth/api/get-session';
+import { safeNext } from '@/lib/safe-next';
 import { SESSION_EXPIRED_FLAG } from '../query-client';
 
 function Loading() {
@@ -41,10 +42,28 @@ export function RequireAuth({ roles }: { roles?: Account['role'][] }) {
   );
 }
 
-/** Sign-in and sign-up pages: a signed-in visitor goes home instead. */
+/**
+ * Sign-in and sign-up pages: a signed-in visitor goes on to `next` (or home). Signing in or up on
+ * this page lands here too, so both roads must lead to the same place.
+ */
 export function RedirectIfSignedIn() {
   const session = useSession();
+  const [params] = useSearchParams();
   if (session.isPending) return <Loading />;
-  if (session.data?.user) return <Navigate to={paths.home} replace />;
+  if (session.data?.user) return <Navigate to={safeNext(params.get('next'))} replace />;
   return <Outlet />;
+}
+
+/** Pages open to everyone (the join page): inside the app shell when signed in, bare otherwise. */
+export function ShellIfSignedIn() {
+  const session = useSession();
+  const signOut = useSignOut();
+  if (session.isPending) return <Loading />;
+  const user = session.data?.user;
+  if (!user) return <Outlet />;
+  return (
+    <AppShell user={user} onSignOut={() => signOut.mutateAsync().then(() => undefined)}>
+      <Outlet />
+    </AppShell>
+  );
 }

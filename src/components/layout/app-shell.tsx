@@ -38,20 +38,20 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
         Skip to content
       </a>
       <header className="border-b border-sand-200 bg-white">
-        <div className="mx-auto flex max-w-6xl items-center gap-4 px-4 py-3">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3 md:flex-nowrap">
           <NavLink to={paths.home} aria-label="Seepwise home">
             <Logo />
           </NavLink>
           <button
             type="button"
-            className="ml-auto rounded-lg border border-sand-300 px-3 py-2 text-sm md:hidden"
+            className="ml-auto min-h-11 rounded-lg border border-sand-300 px-4 py-2 text-sm font-medium md:hidden"
             aria-expanded={open}
             aria-controls="main-nav"
             onClick={() => setOpen((v) => !v)}
           >
             Menu
           </button>
-          <nav id="main-nav" aria-label="Main" className={cn('w-full md:ml-6 md:flex md:w-auto md:items-center', open ? 'block' : 'hidden md:flex')}>
+          <nav id="main-nav" aria-label="Main" className={cn('order-last basis-full md:order-none md:ml-6 md:flex md:basis-auto md:items-center', open ? 'block' : 'hidden md:flex')}>
             <ul className="flex flex-col gap-1 md:flex-row md:gap-1">
               {items.map((item) => (
                 <li key={item.to}>
@@ -60,7 +60,7 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
                     end={item.to === paths.home}
                     onClick={() => setOpen(false)}
                     className={({ isActive }) =>
-                      cn('block rounded-lg px-3 py-2 text-sm font-medium', isActive ? 'bg-terracotta-50 text-terracotta-800' : 'text-ink-muted hover:bg-sand-100 hover:text-ink')
+                      cn('block rounded-lg px-3 py-3 text-base font-medium md:py-2 md:text-sm', isActive ? 'bg-terracotta-50 text-terracotta-800' : 'text-ink-muted hover:bg-sand-100 hover:text-ink')
                     }
                   >
                     {item.label}
@@ -80,7 +80,7 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
         </div>
         {open ? (
           <div className="border-t border-sand-200 px-4 py-2 md:hidden">
-            <button type="button" className="text-sm font-medium text-terracotta-700 underline" onClick={() => void signOut()}>
+            <button type="button" className="min-h-11 text-base font-medium text-terracotta-700 underline" onClick={() => void signOut()}>
               Sign out ({user.displayName})
             </button>
           </div>

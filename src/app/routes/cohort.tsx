@@ -1,0 +1,107 @@
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Alert } from '@/components/ui/alert';
+import { Card } from '@/components/ui/card';
+import { paths } from '@/config/paths';
+import { useCohort } from '@/features/cohorts/api/get-cohort';
+import { CohortHeader } from '@/features/cohorts/components/cohort-header';
+import { CohortSettingsForm } from '@/features/cohorts/components/cohort-settings-form';
+import { InvitationsList } from '@/features/cohorts/components/invitations-list';
+import { InviteForm } from '@/features/cohorts/components/invite-form';
+import { JoinCodeCard } from '@/features/cohorts/components/join-code-card';
+import { LeaveCohortCard } from '@/features/cohorts/components/leave-cohort-card';
+import { MembersList } from '@/features/cohorts/components/members-list';
+import { ApiRequestError } from '@/lib/api-client';
+
+function joinUrl(code: string) {
+  return `${window.location.origin}${paths.joinCohort}?code=${encodeURIComponent(code)}`;
+}
+
+function BackLink() {
+  return (
+    <Link to={paths.cohorts} className="inline-flex min-h-10 items-center text-sm font-medium text-terracotta-700 underline">
+      ← All cohorts
+    </Link>
+  );
+}
+
+export function CohortPage() {
+  const { cohortId = '' } = useParams();
+  const cohort = useCohort(cohortId);
+  const navigate = useNavigate();
+
+  if (cohort.isPending) {
+    return (
+      <p role="status" className="text-ink-muted">
+        Loading the cohort…
+      </p>
+    );
+  }
+  if (cohort.isError) {
+    const notFound = cohort.error instanceof ApiRequestError && cohort.error.status === 404;
+    return (
+      <div className="space-y-4">
+        <BackLink />
+        <h1>{notFound ? 'Cohort not found' : 'Could not load the cohort'}</h1>
+        <Alert tone="error">
+          {notFound ? 'No cohort with this address has you as its lead or a member. If you left it or were removed, you need a new code or invitation.' : cohort.error.message}
+        </Alert>
+      </div>
+    );
+  }
+
+  const c = cohort.data;
+  const isLead = c.myRole === 'lead';
+  const full = c.capacity !== null && c.memberCount >= c.capacity;
+  const inviteBlocked = c.closed
+    ? 'The cohort is closed to new members: untick “Closed to new members” in the settings below before inviting anyone.'
+    : full
+      ? 'The cohort is full: raise the member limit in the settings below before inviting anyone.'
+      : undefined;
+
+  return (
+    <div className="space-y-6">
+      <BackLink />
+      <CohortHeader cohort={c} />
+
+      <div className={isLead ? 'grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]' : 'grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]'}>
+        {/* The join code comes first on a phone (it is what a lead reads out), beside the members on a wide screen. */}
+        {isLead ? (
+          <div className="space-y-6 lg:order-2">
+            <JoinCodeCard cohort={c} joinUrl={joinUrl} />
+            <Card role="region" aria-labelledby="invite-heading" className="space-y-4">
+              <div>
+                <h2 id="invite-heading">Invite by e-mail</h2>
+                <p className="mt-1 text-sm text-ink-muted">Sends a link that works once, for 14 days, for that address only.</p>
+              </div>
+              <InviteForm cohortId={c.id} disabledReason={inviteBlocked} />
+              <h3 className="pt-2 text-base">Invitations sent</h3>
+              <InvitationsList cohortId={c.id} />
+            </Card>
+          </div>
+        ) : null}
+
+        <div className="space-y-6 lg:order-1">
+          <Card role="region" aria-labelledby="members-heading" className="space-y-4">
+            <h2 id="members-heading">Members</h2>
+            <MembersList cohortId={c.id} canRemove={isLead} />
+          </Card>
+
+          {/* Pooled results join this page with the analysis work; until then there is deliberately no results section. */}
+
+          {isLead ? (
+            <Card role="region" aria-labelledby="settings-heading" className="space-y-4">
+              <h2 id="settings-heading">Settings</h2>
+              <CohortSettingsForm key={c.id} cohort={c} />
+            </Card>
+          ) : null}
+        </div>
+
+        {!isLead ? (
+          <div className="space-y-6 lg:order-2">
+            <LeaveCohortCard cohort={c} onLeft={() => navigate(paths.cohorts, { replace: true })} />
+          </div>
+        ) : null}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,82 @@
+import { useState } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { paths } from '@/config/paths';
+import { useCurrentUser } from '@/features/auth/api/get-session';
+import { useCohorts } from '@/features/cohorts/api/get-cohorts';
+import { CohortList } from '@/features/cohorts/components/cohort-list';
+import { CreateCohortForm } from '@/features/cohorts/components/create-cohort-form';
+import { JoinCohortForm } from '@/features/cohorts/components/join-cohort-form';
+
+export function CohortsPage() {
+  const user = useCurrentUser();
+  const cohorts = useCohorts();
+  const navigate = useNavigate();
+  const [creating, setCreating] = useState(false);
+  const canLead = user?.role === 'educator' || user?.role === 'admin';
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h1>Cohorts</h1>
+          <p className="mt-1 max-w-2xl text-ink-muted">
+            A cohort pools many growers’ trials into one answer. Members appear by pseudonym only: no names, no e-mail addresses.
+          </p>
+        </div>
+        {canLead && !creating ? (
+          <Button id="new-cohort-button" size="lg" onClick={() => setCreating(true)}>
+            New cohort
+          </Button>
+        ) : null}
+      </div>
+
+      {canLead && creating ? (
+        <Card id="new-cohort" role="region" aria-labelledby="new-cohort-heading" className="max-w-3xl space-y-4">
+          <div>
+            <h2 id="new-cohort-heading">New cohort</h2>
+            <p className="mt-1 text-sm text-ink-muted">You will lead it: you get a join code to hand out and can invite people by e-mail.</p>
+          </div>
+          <CreateCohortForm onCreated={(c) => navigate(paths.cohort(c.id))} onCancel={() => {
+              setCreating(false);
+              document.getElementById('new-cohort-button')?.focus();
+            }}
+            autoFocus
+          />
+        </Card>
+      ) : null}
+
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <section aria-labelledby="my-cohorts-heading" className="space-y-3">
+          <h2 id="my-cohorts-heading">Your cohorts</h2>
+          {cohorts.isPending ? (
+            <p role="status" className="text-ink-muted">
+              Loading your cohorts…
+            </p>
+          ) : cohorts.isError ? (
+            <Alert tone="error">Could not load your cohorts: {cohorts.error.message}</Alert>
+          ) : cohorts.data.length === 0 ? (
+            <Card className="text-ink-muted">
+              <p>You are not in any cohort yet.</p>
+              <p className="mt-1">
+                {canLead ? 'Start one with “New cohort”, or join another lead’s cohort with a code.' : 'Ask your educator or garden network for a join code, then enter it under “Join with a code”.'}
+              </p>
+            </Card>
+          ) : (
+            <CohortList cohorts={cohorts.data} />
+          )}
+        </section>
+
+        <Card role="region" aria-labelledby="join-heading" className="space-y-4 self-start">
+          <div>
+            <h2 id="join-heading">Join with a code</h2>
+            <p className="mt-1 text-sm text-ink-muted">Got a code from a lead? Enter it here.</p>
+          </div>
+          <JoinCohortForm onJoined={(c) => navigate(paths.cohort(c.id))} />
+        </Card>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,75 @@
+import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
+import { PublicLayout } from '@/components/layout/public-layout';
+import { Card } from '@/components/ui/card';
+import { buttonVariants } from '@/components/ui/button';
+import { paths } from '@/config/paths';
+import { useCurrentUser } from '@/features/auth/api/get-session';
+import { InvitationPanel } from '@/features/cohorts/components/invitation-panel';
+import { JoinCohortForm } from '@/features/cohorts/components/join-cohort-form';
+
+/**
+ * /join?invite=TOKEN (an e-mailed invitation) or /join?code=CODE (a shared join link), for signed-in
+ * and signed-out visitors alike. Signing in or up comes back here through `next`.
+ */
+export function JoinPage() {
+  const [params] = useSearchParams();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const user = useCurrentUser();
+  const token = params.get('invite');
+  const code = params.get('code') ?? '';
+  const next = encodeURIComponent(location.pathname + location.search);
+  const signInHref = `${paths.signIn}?next=${next}`;
+  const signUpHref = `${paths.signUp}?next=${next}`;
+  const goToCohort = (id: string) => navigate(paths.cohort(id), { replace: true });
+
+  const invitation = token ? (
+    <InvitationPanel token={token} signedIn={Boolean(user)} signInHref={signInHref} signUpHref={signUpHref} onAccepted={(c) => goToCohort(c.id)} />
+  ) : null;
+
+  const codeSection = user ? (
+    <JoinCohortForm defaultCode={code} onJoined={(c) => goToCohort(c.id)} />
+  ) : (
+    <div className="space-y-3">
+      <p>{code ? 'Sign in or create an account first; the code comes along.' : 'Sign in or create an account first, then enter the code your lead gave you.'}</p>
+      <div className="flex flex-col gap-2 sm:flex-row">
+        <Link to={signInHref} className={buttonVariants({ size: 'lg' })}>
+          Sign in
+        </Link>
+        <Link to={signUpHref} className={buttonVariants({ variant: 'secondary', size: 'lg' })}>
+          Create an account
+        </Link>
+      </div>
+    </div>
+  );
+
+  if (!user) {
+    return (
+      <PublicLayout title={token ? 'Your invitation' : 'Join a cohort'} intro={token ? undefined : 'Cohorts pool many growers’ trials into one answer. You take part under a pseudonym.'}>
+        {invitation ?? codeSection}
+        {token ? (
+          <p className="mt-6 text-sm text-ink-muted">
+            Have a join code instead?{' '}
+            <Link className="text-terracotta-700 underline" to={paths.joinCohort}>
+              Join with a code
+            </Link>
+          </p>
+        ) : null}
+      </PublicLayout>
+    );
+  }
+
+  return (
+    <div className="mx-auto max-w-2xl space-y-6">
+      <h1>{token ? 'Your invitation' : 'Join a cohort'}</h1>
+      {invitation ? <Card>{invitation}</Card> : null}
+      <Card role="region" aria-labelledby="join-code-form-heading" className="space-y-4">
+        <div>
+          <h2 id="join-code-form-heading">{token ? 'Or join with a code' : 'Join with a code'}</h2>
+          <p className="mt-1 text-sm text-ink-muted">Others in the cohort will see you under a pseudonym, never your name or e-mail.</p>
+        </div>
+        {codeSection}
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,57 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
+import { changePasswordInputSchema, MIN_PASSWORD_LENGTH } from '@shared/schemas/auth';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { InputField } from '@/components/ui/field';
+import { applyServerErrors } from '@/lib/form-errors';
+import { useChangePassword } from '../api/auth-mutations';
+
+const formSchema = changePasswordInputSchema
+  .extend({ currentPassword: z.string().min(1, 'Enter your current password.').max(200), confirm: z.string() })
+  .refine((v) => v.newPassword === v.confirm, { path: ['confirm'], message: 'The two new passwords differ.' });
+type FormValues = z.infer<typeof formSchema>;
+
+/** Change the password; every other session is signed out, this one carries on. */
+export function ChangePasswordForm() {
+  const change = useChangePassword();
+  const [formError, setFormError] = useState<string | null>(null);
+  const [done, setDone] = useState(false);
+  const { register, handleSubmit, setError, formState, reset } = useForm<FormValues>({
+    resolver: zodResolver(formSchema),
+    defaultValues: { currentPassword: '', newPassword: '', confirm: '' },
+  });
+  const onSubmit = handleSubmit(async ({ currentPassword, newPassword }) => {
+    setFormError(null);
+    setDone(false);
+    try {
+      await change.mutateAsync({ currentPassword, newPassword });
+      reset();
+      setDone(true);
+    } catch (err) {
+      setFormError(applyServerErrors(err, setError));
+    }
+  });
+  const { errors } = formState;
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Change password">
+      {formError ? <Alert tone="error">{formError}</Alert> : null}
+      {done ? <Alert tone="success">Password changed. Any other device signed in to your account has been signed out.</Alert> : null}
+      <InputField label="Current password" type="password" autoComplete="current-password" {...register('currentPassword')} error={errors.currentPassword?.message} />
+      <InputField
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${MIN_PASSWORD_LENGTH} characters; a short phrase works well.`}
+        {...register('newPassword')}
+        error={errors.newPassword?.message}
+      />
+      <InputField label="Repeat the new password" type="password" autoComplete="new-password" {...register('confirm')} error={errors.confirm?.message} />
+      <Button type="submit" size="lg" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? 'Changing…' : 'Change password'}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,40 @@
+import { Link } from 'react-router-dom';
+import type { CohortSummary } from '@shared/schemas/cohorts';
+import { paths } from '@/config/paths';
+import { plural } from '@/lib/format';
+import { kindLabels } from './labels';
+import { ClosedBadge, RoleBadge } from './role-badge';
+
+/** How the caller appears in a cohort, in one short line. */
+export function myPlaceText(c: CohortSummary): string {
+  if (c.myRole === 'lead') return 'You lead this cohort';
+  return c.myPseudonym ? `You appear as ${c.myPseudonym}` : 'You are a member';
+}
+
+/** The caller's cohorts as a list of links, each with role, pseudonym and size. */
+export function CohortList({ cohorts, headingLevel = 'h3' }: { cohorts: CohortSummary[]; headingLevel?: 'h2' | 'h3' }) {
+  const Heading = headingLevel;
+  return (
+    <ul className="divide-y divide-sand-200 rounded-card border border-sand-200 bg-white" aria-label="Your cohorts">
+      {cohorts.map((c) => (
+        <li key={c.id}>
+          <Link
+            to={paths.cohort(c.id)}
+            className="group flex min-h-16 flex-col gap-1 px-4 py-3 hover:bg-sand-50 focus-visible:bg-sand-50 sm:flex-row sm:items-center sm:gap-4"
+          >
+            <div className="min-w-0 flex-1">
+              <Heading className="truncate text-base font-semibold text-terracotta-700 group-hover:underline">{c.name}</Heading>
+              <p className="text-sm text-ink-muted">
+                {kindLabels[c.kind]} · {plural(c.memberCount, 'member')} · {myPlaceText(c)}
+              </p>
+            </div>
+            <div className="flex flex-wrap items-center gap-2">
+              {c.closed ? <ClosedBadge /> : null}
+              <RoleBadge role={c.myRole} />
+            </div>
+          </Link>
+        </li>
+      ))}
+    </ul>
+  );
+}
