@@ -14,7 +14,7 @@ export default {
         slate: { 50: '#eef3f8', 100: '#d9e3ee', 200: '#b3c7dd', 300: '#87a5c7', 400: '#5d83ae', 500: '#3b5f8a', 600: '#304e72', 700: '#273f5c', 800: '#1d2f45', 900: '#141f2e' },
         sand: { 50: '#fdfaf5', 100: '#f6efe4', 200: '#ede1cd', 300: '#dfcbaa', 400: '#c9ab7f', 500: '#a98a5d', 600: '#8a6f48', 700: '#6b5637', 800: '#4a3c27', 900: '#2e2518' },
         ink: { DEFAULT: '#2b241d', muted: '#5f5448', faint: '#8a7d6e' },
-        olla: '#5a8a4f',
+        olla: '#4a7642',
         surface: '#3b5f8a',
       },
       fontFamily: {

@@ -9,10 +9,22 @@ import { sessionQueryOptions } from '@/features/auth/api/get-session';
 import { cohortQueryOptions } from '@/features/cohorts/api/get-cohort';
 import { cohortMembersQueryOptions } from '@/features/cohorts/api/get-cohort-members';
 import { cohortsQueryOptions } from '@/features/cohorts/api/get-cohorts';
+import { trialAnalysisQueryOptions } from '@/features/analysis/api/get-trial-analysis';
+import { gardenQueryOptions } from '@/features/gardens/api/get-garden';
+import { gardensQueryOptions } from '@/features/gardens/api/get-gardens';
+import { roundQueryOptions } from '@/features/round/api/get-round';
+import { plotsQueryOptions } from '@/features/trials/api/get-plots';
+import { trialQueryOptions } from '@/features/trials/api/get-trial';
+import { trialsQueryOptions } from '@/features/trials/api/get-trials';
 import { AccountPage } from './routes/account';
 import { AdminOutboxPage, AdminPage, usersParamsFrom } from './routes/admin';
 import { ForgotPasswordPage, ResetPasswordPage, SignInPage, SignUpPage, VerifyEmailPage } from './routes/auth-pages';
 import { CohortPage } from './routes/cohort';
+import { GardenPage } from './routes/garden';
+import { GuidesRoute } from './routes/guides';
+import { NewGardenPage } from './routes/new-garden';
+import { RoundPage } from './routes/round';
+import { TrialPage } from './routes/trial';
 import { CohortsPage } from './routes/cohorts';
 import { RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
 import { HomePage } from './routes/home';
@@ -64,7 +76,28 @@ export function createAppRouter(queryClient: QueryClient) {
         {
           element: <RequireAuth />,
           children: [
-            { path: paths.home, element: <HomePage />, loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
+            {
+              path: paths.home,
+              element: <HomePage />,
+              loader: prefetch(() => [ensure(cohortsQueryOptions()), ensure(gardensQueryOptions()), ensure(trialsQueryOptions())]),
+            },
+            { path: paths.newGarden, element: <NewGardenPage /> },
+            {
+              path: paths.garden(':gardenId'),
+              element: <GardenPage />,
+              loader: prefetch(({ params }) => [ensure(gardenQueryOptions(params.gardenId!)), ensure(trialsQueryOptions(params.gardenId!))]),
+            },
+            {
+              path: paths.trial(':trialId'),
+              element: <TrialPage />,
+              loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(plotsQueryOptions(params.trialId!)), ensure(trialAnalysisQueryOptions(params.trialId!))]),
+            },
+            {
+              path: paths.round(':trialId'),
+              element: <RoundPage />,
+              loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(roundQueryOptions(params.trialId!))]),
+            },
+            { path: paths.guides, element: <GuidesRoute /> },
             { path: paths.account, element: <AccountPage /> },
             { path: paths.cohorts, element: <CohortsPage />, loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
             {

@@ -13,4 +13,11 @@ export const paths = {
   cohorts: '/cohorts',
   cohort: (id: string) => `/cohorts/${id}`,
   joinCohort: '/join',
+  gardens: '/gardens',
+  newGarden: '/gardens/new',
+  garden: (id: string) => `/gardens/${id}`,
+  trial: (id: string) => `/trials/${id}`,
+  round: (id: string) => `/trials/${id}/round`,
+  pots: '/pots',
+  planner: '/planner',
 } as const;

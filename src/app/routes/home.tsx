@@ -5,6 +5,9 @@ import { paths } from '@/config/paths';
 import { useCurrentUser } from '@/features/auth/api/get-session';
 import { useCohorts } from '@/features/cohorts/api/get-cohorts';
 import { CohortList } from '@/features/cohorts/components/cohort-list';
+import { useGardens } from '@/features/gardens/api/get-gardens';
+import { useTrials } from '@/features/trials/api/get-trials';
+import { TrialCards } from '@/features/trials/components/trial-cards';
 
 const HOME_COHORT_LIMIT = 5;
 
@@ -39,6 +42,57 @@ function YourCohortsCard() {
   );
 }
 
+function GardensAndTrials() {
+  const gardens = useGardens();
+  const trials = useTrials();
+  const active = (trials.data ?? []).filter((t) => t.status !== 'closed');
+  const closed = (trials.data ?? []).filter((t) => t.status === 'closed');
+  return (
+    <section aria-labelledby="home-trials-heading" className="space-y-4">
+      <div className="flex flex-wrap items-center gap-3">
+        <h2 id="home-trials-heading">Your trials</h2>
+        <Link to={paths.newGarden} className="ml-auto inline-flex min-h-10 items-center rounded-lg border border-sand-300 bg-white px-3 text-sm font-medium hover:bg-sand-100">
+          New garden
+        </Link>
+      </div>
+      {trials.isPending || gardens.isPending ? <p role="status">Loading…</p> : null}
+      {gardens.data && gardens.data.length === 0 ? (
+        <Card>
+          <p>
+            Start with a garden: its rough location and soil feed the water-need sums. Then add a trial with matched pairs of plots.{' '}
+            <Link to={paths.newGarden} className="font-medium text-terracotta-700 underline">
+              Create your first garden
+            </Link>
+          </p>
+        </Card>
+      ) : null}
+      {active.length ? <TrialCards trials={active} trialPath={paths.trial} roundPath={paths.round} /> : null}
+      {gardens.data?.length ? (
+        <p className="text-sm text-ink-muted">
+          Gardens:{' '}
+          {gardens.data.map((g, i) => (
+            <span key={g.id}>
+              {i ? ' · ' : ''}
+              <Link className="underline" to={paths.garden(g.id)}>
+                {g.name}
+              </Link>{' '}
+              ({g.trialCount})
+            </span>
+          ))}
+        </p>
+      ) : null}
+      {closed.length ? (
+        <details>
+          <summary className="cursor-pointer font-medium">Closed trials ({closed.length})</summary>
+          <div className="mt-3">
+            <TrialCards trials={closed} trialPath={paths.trial} roundPath={paths.round} />
+          </div>
+        </details>
+      ) : null}
+    </section>
+  );
+}
+
 export function HomePage() {
   const user = useCurrentUser();
   return (
@@ -47,6 +101,7 @@ export function HomePage() {
         <h1>Hello, {user?.displayName}</h1>
         <p className="mt-1 text-ink-muted">Your gardens and trials at a glance, and what needs doing today.</p>
       </div>
+      <GardensAndTrials />
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>
           <h2>Getting started</h2>

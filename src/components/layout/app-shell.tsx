@@ -2,6 +2,7 @@ import { useState, type ReactNode } from 'react';
 import { NavLink, useNavigate } from 'react-router-dom';
 import type { Account } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
+import { UnitsProvider } from '@/lib/units';
 import { cn } from '@/lib/utils';
 import { Logo } from './logo';
 
@@ -14,6 +15,8 @@ export interface NavItem {
 
 const navItems: NavItem[] = [
   { to: paths.home, label: 'Home' },
+  { to: paths.pots, label: 'Pot shelf' },
+  { to: paths.planner, label: 'Planner' },
   { to: paths.cohorts, label: 'Cohorts' },
   { to: paths.guides, label: 'Guides' },
   { to: paths.account, label: 'Account' },
@@ -87,7 +90,9 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
         ) : null}
       </header>
       <main id="main" className="mx-auto max-w-6xl px-4 py-6">
+        <UnitsProvider system={user.unitSystem}>
         {children}
+        </UnitsProvider>
       </main>
     </div>
   );

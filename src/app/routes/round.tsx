@@ -1,0 +1,27 @@
+import { Link, useParams } from 'react-router-dom';
+import { Alert } from '@/components/ui/alert';
+import { paths } from '@/config/paths';
+import { RoundScreen } from '@/features/round/components/round-screen';
+import { useTrial } from '@/features/trials/api/get-trial';
+
+export function RoundPage() {
+  const { trialId = '' } = useParams();
+  const trial = useTrial(trialId);
+  if (trial.isPending) return <p role="status">Loading…</p>;
+  if (trial.isError) return <Alert tone="error">{trial.error.message}</Alert>;
+  if (trial.data.status !== 'active') {
+    return (
+      <Alert tone="warning">
+        This trial is {trial.data.status}: the round is for active trials. <Link className="underline" to={paths.trial(trialId)}>Back to the trial</Link>
+      </Alert>
+    );
+  }
+  return (
+    <div className="space-y-3">
+      <Link className="text-sm text-terracotta-700 underline" to={paths.trial(trialId)}>
+        ← {trial.data.title}
+      </Link>
+      <RoundScreen trialId={trialId} title={trial.data.title} />
+    </div>
+  );
+}

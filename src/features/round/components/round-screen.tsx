@@ -1,0 +1,183 @@
+import { useMemo, useState } from 'react';
+import type { RoundInput } from '@shared/schemas/logs';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { useUnits } from '@/lib/units';
+import { cn } from '@/lib/utils';
+import { useRound, type RoundPot } from '../api/get-round';
+import { useSaveRound } from '../api/save-round';
+
+type Entry = { kind: 'refill'; potId: string; plotId: string; volume: number } | { kind: 'surface'; plotId: string; volume: number };
+
+function newKey(): string {
+  return typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 12)}`;
+}
+
+/** Days since an ISO instant, for "last refilled 2 days ago". */
+function daysAgo(iso: string | null): string {
+  if (!iso) return 'never';
+  const d = Math.floor((Date.now() - Date.parse(iso)) / 86_400_000);
+  return d <= 0 ? 'today' : d === 1 ? 'yesterday' : `${d} days ago`;
+}
+
+/** Litres left now: capacity minus what the last seep test says it lost since the last refill. */
+function estimatedLevel(p: RoundPot): number | null {
+  if (!p.lastRefillAt || p.seepLPerDay === null) return null;
+  const days = (Date.now() - Date.parse(p.lastRefillAt)) / 86_400_000;
+  return Math.max(0, Math.min(p.capacityL, p.capacityL - p.seepLPerDay * days));
+}
+
+/**
+ * The Round: the phone screen for the daily walk. Every pot and surface plot of the trial in one
+ * list; one tap marks a refill at the last volume (or a full pot), a second tap saves the walk.
+ */
+export function RoundScreen({ trialId, title }: { trialId: string; title: string }) {
+  const units = useUnits();
+  const round = useRound(trialId);
+  const save = useSaveRound(trialId);
+  const [entries, setEntries] = useState<Record<string, Entry>>({});
+  const [done, setDone] = useState<string | null>(null);
+  const step = units.system === 'us' ? 0.25 : 0.5;
+
+  const pots = useMemo(() => {
+    const list = round.data?.pots ?? [];
+    // Emptiest first: the estimate from the last seep test, else the oldest refill.
+    return [...list].sort((a, b) => (estimatedLevel(a) ?? a.capacityL) / a.capacityL - (estimatedLevel(b) ?? b.capacityL) / b.capacityL);
+  }, [round.data]);
+  const surfacePlots = (round.data?.plots ?? []).filter((p) => p.treatment !== 'olla');
+  const plotLabel = (id: string) => round.data?.plots.find((p) => p.id === id)?.label ?? '';
+
+  if (round.isPending) return <p role="status">Loading your pots…</p>;
+  if (round.isError) return <Alert tone="error">{round.error.message}</Alert>;
+
+  const toggle = (key: string, entry: Entry) =>
+    setEntries((e) => {
+      const next = { ...e };
+      if (next[key]) delete next[key];
+      else next[key] = entry;
+      return next;
+    });
+  const adjust = (key: string, delta: number) =>
+    setEntries((e) => {
+      const cur = e[key];
+      if (!cur) return e;
+      const display = Math.max(step, Math.round((units.show(cur.volume, 'volume') + delta) / step) * step);
+      return { ...e, [key]: { ...cur, volume: units.toSI(display, 'volume') } };
+    });
+
+  const count = Object.keys(entries).length;
+  const submit = () => {
+    const now = new Date().toISOString();
+    const input: RoundInput = {
+      entries: Object.values(entries).map((en) =>
+        en.kind === 'refill'
+          ? { type: 'water', entry: { plotId: en.plotId, potId: en.potId, occurredAt: now, kind: 'olla_refill', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } }
+          : { type: 'water', entry: { plotId: en.plotId, potId: null, occurredAt: now, kind: 'surface', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } },
+      ),
+    };
+    setDone(null);
+    save.mutate(input, {
+      onSuccess: (res) => {
+        setEntries({});
+        setDone(`Saved ${res.length} record${res.length === 1 ? '' : 's'}.`);
+      },
+    });
+  };
+
+  const row = (key: string, entry: Entry, heading: string, sub: string, level: number | null, capacity: number | null) => {
+    const on = Boolean(entries[key]);
+    const vol = entries[key]?.volume ?? entry.volume;
+    return (
+      <li key={key} className={cn('rounded-card border bg-white p-3', on ? 'border-terracotta-400 ring-2 ring-terracotta-200' : 'border-sand-200')}>
+        <div className="flex items-center gap-3">
+          <div className="min-w-0 flex-1">
+            <p className="font-semibold">{heading}</p>
+            <p className="text-sm text-ink-muted">{sub}</p>
+            {level !== null && capacity ? (
+              <div className="mt-1 flex items-center gap-2" aria-label={`Estimated ${Math.round((level / capacity) * 100)}% full`}>
+                <div className="h-2 w-24 overflow-hidden rounded bg-sand-200">
+                  <div className={cn('h-full', level / capacity < 0.25 ? 'bg-terracotta-600' : 'bg-sage-500')} style={{ width: `${(level / capacity) * 100}%` }} />
+                </div>
+                <span className="text-xs text-ink-muted">~{Math.round((level / capacity) * 100)}% left</span>
+              </div>
+            ) : null}
+          </div>
+          <Button
+            size="lg"
+            variant={on ? 'primary' : 'secondary'}
+            className="min-w-36"
+            aria-pressed={on}
+            onClick={() => toggle(key, { ...entry, volume: vol })}
+          >
+            {on ? '✓ ' : ''}
+            {units.fmt(vol, 'volume', 2)}
+          </Button>
+        </div>
+        {on ? (
+          <div className="mt-2 flex items-center justify-end gap-2">
+            <Button size="md" variant="secondary" aria-label={`Less water for ${heading}`} onClick={() => adjust(key, -step)}>
+              −
+            </Button>
+            <Button size="md" variant="secondary" aria-label={`More water for ${heading}`} onClick={() => adjust(key, step)}>
+              +
+            </Button>
+          </div>
+        ) : null}
+      </li>
+    );
+  };
+
+  return (
+    <div className="mx-auto max-w-xl space-y-5 pb-28">
+      <div>
+        <p className="text-sm text-ink-muted">Today&apos;s round</p>
+        <h1>{title}</h1>
+        <p className="text-sm text-ink-muted">Tap each pot you refilled (the last volume is filled in; adjust with − and +), then save once at the bottom.</p>
+      </div>
+      {done ? <Alert tone="success">{done}</Alert> : null}
+      {save.isError ? <Alert tone="error">{save.error.message} Nothing was saved; your taps are kept, so you can try again.</Alert> : null}
+      <section aria-labelledby="pots-heading" className="space-y-2">
+        <h2 id="pots-heading" className="text-lg">
+          Pots ({pots.length})
+        </h2>
+        {pots.length === 0 ? <p className="text-ink-muted">No pots are placed in this trial&apos;s plots yet. Place them from the Pot shelf.</p> : null}
+        <ul className="space-y-2">
+          {pots.map((p) =>
+            row(
+              `pot:${p.id}`,
+              { kind: 'refill', potId: p.id, plotId: p.plotId, volume: p.lastRefillL ?? p.capacityL },
+              `${p.label} · plot ${plotLabel(p.plotId)}`,
+              `${units.fmt(p.capacityL, 'volume', 1)} pot · last refilled ${daysAgo(p.lastRefillAt)}${p.condition !== 'sound' ? ` · ${p.condition}` : ''}`,
+              estimatedLevel(p),
+              p.capacityL,
+            ),
+          )}
+        </ul>
+      </section>
+      <section aria-labelledby="surface-heading" className="space-y-2">
+        <h2 id="surface-heading" className="text-lg">
+          Surface-watered plots ({surfacePlots.length})
+        </h2>
+        <ul className="space-y-2">
+          {surfacePlots.map((p) =>
+            row(
+              `plot:${p.id}`,
+              { kind: 'surface', plotId: p.id, volume: p.lastSurfaceL ?? 10 },
+              `Plot ${p.label}`,
+              `${units.fmt(p.areaM2, 'area', 1)} · last watered ${daysAgo(p.lastWateredAt)}`,
+              null,
+              null,
+            ),
+          )}
+        </ul>
+      </section>
+      <div className="fixed inset-x-0 bottom-0 border-t border-sand-200 bg-white/95 p-3 backdrop-blur">
+        <div className="mx-auto max-w-xl">
+          <Button size="lg" className="w-full" disabled={count === 0 || save.isPending} onClick={submit}>
+            {save.isPending ? 'Saving…' : count === 0 ? 'Tap what you watered' : `Save ${count} record${count === 1 ? '' : 's'}`}
+          </Button>
+        </div>
+      </div>
+    </div>
+  );
+}

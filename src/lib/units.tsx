@@ -1,0 +1,36 @@
+import { createContext, useContext, useMemo, type ReactNode } from 'react';
+import { fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from '@shared/units';
+
+interface UnitsApi {
+  system: UnitSystem;
+  /** Stored SI value → display number in the reader's system. */
+  show: (si: number, q: Quantity) => number;
+  /** Typed display value → SI for storage. */
+  toSI: (display: number, q: Quantity) => number;
+  label: (q: Quantity) => string;
+  /** Formatted with unit, e.g. "2.6 gal". */
+  fmt: (si: number | null | undefined, q: Quantity, digits?: number) => string;
+}
+
+const UnitsContext = createContext<UnitSystem>('metric');
+
+export function UnitsProvider({ system, children }: { system: UnitSystem; children: ReactNode }) {
+  return <UnitsContext.Provider value={system}>{children}</UnitsContext.Provider>;
+}
+
+const numberFmt = (digits: number) => new Intl.NumberFormat(undefined, { maximumFractionDigits: digits, minimumFractionDigits: 0 });
+
+/** Values are stored in SI and shown in the account's unit system (metric or US customary). */
+export function useUnits(): UnitsApi {
+  const system = useContext(UnitsContext);
+  return useMemo(
+    () => ({
+      system,
+      show: (si, q) => toDisplay(si, q, system),
+      toSI: (v, q) => fromDisplay(v, q, system),
+      label: (q) => unitLabel(q, system),
+      fmt: (si, q, digits = 1) => (si === null || si === undefined || !Number.isFinite(si) ? '—' : `${numberFmt(digits).format(toDisplay(si, q, system))} ${unitLabel(q, system)}`),
+    }),
+    [system],
+  );
+}
