@@ -49,6 +49,13 @@ function waterSentence(m: PairedMetric, c: Comparison, f: Fmt): string | null {
       : `With a single pair, Seepwise shows the totals only: ${t} received ${depth(tv, f)} and ${ctl} ${depth(cv, f)}. No test across replicates is possible with one pair, and days are not replicates.`;
   }
   const r = m.result;
+  if (r.constantDifferences) {
+    const amount = depth(Math.abs(r.meanDifference), f);
+    const dir = r.meanDifference < 0 ? (f.lang === 'es' ? 'menos' : 'less') : f.lang === 'es' ? 'más' : 'more';
+    return f.lang === 'es'
+      ? `En los ${r.n} pares, ${t} recibieron exactamente ${amount} ${dir} agua que sus gemelas: sin variación entre pares no hay prueba ni intervalo con sentido. Revisa que el riego en superficie también esté anotado.`
+      : `In all ${r.n} pairs, ${t} received exactly ${amount} ${dir} water than their twins: with no spread between pairs there is no meaningful test or interval. Check that the surface watering is logged too.`;
+  }
   const conf = Math.round(r.confidence * 100);
   const less = r.meanDifference < 0;
   const amount = depth(Math.abs(r.meanDifference), f);
@@ -78,6 +85,7 @@ function harvestSentence(m: PairedMetric, f: Fmt): string | null {
       : `Harvest per area: a difference of ${yieldPerArea(d, f)} in the single pair (no test possible).`;
   }
   const r = m.result;
+  if (r.constantDifferences) return null;
   const conf = Math.round(r.confidence * 100);
   const [lo, hi] = r.ci;
   const includesZero = lo <= 0 && hi >= 0;
@@ -106,7 +114,7 @@ export function describeComparison(c: Comparison, f: Fmt): string[] {
   const h = harvestSentence(c.metrics.harvestKgPerM2, f);
   if (h) out.push(h);
   const n = c.metrics.waterMm.n;
-  if (c.metrics.waterMm.kind === 'test') {
+  if (c.metrics.waterMm.kind === 'test' && !c.metrics.waterMm.result.constantDifferences) {
     const conf = Math.round(c.metrics.waterMm.result.confidence * 100);
     out.push(
       f.lang === 'es'

@@ -36,7 +36,8 @@ export const soilTextureLabels: Record<SoilTexture, string> = {
 
 /** Locations are kept to 0.1° (about 11 km): enough for sun and season, not enough to find a garden. */
 export function coarsenDegrees(v: number): number {
-  return Math.round(v * 10) / 10;
+  // Halves round away from zero, the same north and south, east and west.
+  return (Math.sign(v) * Math.round(Math.abs(v) * 10)) / 10 || 0;
 }
 
 export const gardenInputSchema = z.object({

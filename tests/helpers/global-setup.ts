@@ -4,6 +4,7 @@
  * clones the template into a fresh database of its own.
  */
 import path from 'node:path';
+import pg from 'pg';
 import type { TestProject } from 'vitest/node';
 import { createDataSource } from '../../server/db/data-source';
 import { recreateDatabase, startCluster, type RunningCluster } from '../../server/infra/postgres-cluster';
@@ -25,7 +26,8 @@ export default async function setup(project: TestProject) {
     port,
     database: 'postgres',
   });
-  const templateDb = `seepwise_template_${project.name}`;
+  // One template per run and project, so two test runs on one machine never trip over each other.
+  const templateDb = `seepwise_template_${project.name}_${process.pid}`;
   const url = recreateDatabase(cluster, templateDb);
   const ds = createDataSource(url, { poolSize: 1 });
   await ds.initialize();
@@ -33,7 +35,13 @@ export default async function setup(project: TestProject) {
   await ds.destroy();
   project.provide('pgPort', port);
   project.provide('templateDb', templateDb);
-  return () => {
-    cluster?.stop();
+  return async () => {
+    const admin = new pg.Client({ connectionString: `postgres://app@127.0.0.1:${port}/postgres` });
+    await admin.connect();
+    await admin.query(`DROP DATABASE IF EXISTS ${templateDb} WITH (FORCE)`);
+    // Leave the cluster running while another run (another template) still uses it.
+    const { rows } = await admin.query(`SELECT count(*)::int AS n FROM pg_database WHERE datname LIKE 'seepwise_template_%'`);
+    await admin.end();
+    if (rows[0].n === 0) cluster?.stop();
   };
 }

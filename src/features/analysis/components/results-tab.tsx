@@ -27,6 +27,20 @@ function MetricRow({ label, m, show }: { label: string; m: PairedMetric; show: (
     );
   }
   const r = m.result;
+  if (r.constantDifferences) {
+    return (
+      <tr className="border-t border-sand-100">
+        <th scope="row" className="px-3 py-2 text-left font-medium">
+          {label}
+        </th>
+        <td className="num px-3 py-2">{r.n}</td>
+        <td className="num px-3 py-2">{show(r.meanDifference)}</td>
+        <td className="px-3 py-2 text-ink-muted" colSpan={4}>
+          Every pair differs by the same amount: no spread between pairs, so no test or interval.
+        </td>
+      </tr>
+    );
+  }
   return (
     <tr className="border-t border-sand-100">
       <th scope="row" className="px-3 py-2 text-left font-medium">
@@ -54,12 +68,12 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
   const depth = (mm: number) => units.fmt(mm, 'length-small', units.system === 'us' ? 2 : 0);
   const perArea = (kg: number) => (units.system === 'us' ? `${fmt((kg / 0.45359237) * 0.09290304, 3)} lb/ft²` : `${fmt(kg, 2)} kg/m²`);
   const water = c.metrics.waterMm;
-  const sdForPlan = water.kind === 'test' && water.result.sdDifference > 0 ? water.result.sdDifference : null;
+  const sdForPlan = water.kind === 'test' && !water.result.constantDifferences && water.result.sdDifference > 0 ? water.result.sdDifference : null;
   const controlDepth = data.treatments.find((t) => t.treatment === c.control)?.depthMm ?? 0;
   const pairsFor20 = sdForPlan && controlDepth > 0 ? pairedSampleSize({ meanDifference: 0.2 * controlDepth, sdDifference: sdForPlan }) : null;
 
   const diffs = c.pairs.map((p) => ({ pair: p.blockKey, difference: units.show(p.waterMm[0] - p.waterMm[1], 'length-small') }));
-  const ciRow = water.kind === 'test' ? { lo: units.show(water.result.ci[0], 'length-small'), hi: units.show(water.result.ci[1], 'length-small'), mean: units.show(water.result.meanDifference, 'length-small') } : null;
+  const ciRow = water.kind === 'test' && !water.result.constantDifferences ? { lo: units.show(water.result.ci[0], 'length-small'), hi: units.show(water.result.ci[1], 'length-small'), mean: units.show(water.result.meanDifference, 'length-small') } : null;
   const diffSpec: VisualizationSpec = {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     width: 'container',
@@ -136,7 +150,7 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
         <Chart
           title="Water difference in each pair"
           takeaway={
-            water.kind === 'test'
+            water.kind === 'test' && !water.result.constantDifferences
               ? `Each dot is a pair; the shaded band is the 95% confidence interval of the mean difference (${depth(water.result.ci[0])} to ${depth(water.result.ci[1])}).`
               : 'Each dot is a pair. With fewer than two pairs there is no interval.'
           }
@@ -380,11 +394,11 @@ export function ResultsTab({ trialId, treatments }: { trialId: string; treatment
         <div className="grid gap-3 sm:grid-cols-4">
           <Card>
             <p className="text-sm text-ink-muted">ET0 total</p>
-            <p className="text-2xl font-semibold">{units.fmt(cw.totalEt0Mm, 'length-small', units.system === 'us' ? 1 : 0)}</p>
+            <p className="text-2xl font-semibold">{cw.weatherDays ? units.fmt(cw.totalEt0Mm, 'length-small', units.system === 'us' ? 1 : 0) : '—'}</p>
           </Card>
           <Card>
             <p className="text-sm text-ink-muted">Crop need (ETc)</p>
-            <p className="text-2xl font-semibold">{cw.totalEtcMm === null ? '—' : units.fmt(cw.totalEtcMm, 'length-small', units.system === 'us' ? 1 : 0)}</p>
+            <p className="text-2xl font-semibold">{cw.totalEtcMm === null || !cw.weatherDays ? '—' : units.fmt(cw.totalEtcMm, 'length-small', units.system === 'us' ? 1 : 0)}</p>
           </Card>
           <Card>
             <p className="text-sm text-ink-muted">Rain</p>
