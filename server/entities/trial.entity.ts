@@ -46,7 +46,7 @@ export class TrialEntity {
   @Column({ type: 'varchar', length: 10, default: 'paired' })
   design: TrialDesign;
 
-  @Column({ type: 'jsonb', default: () => `'["olla","surface"]'` })
+  @Column({ type: 'jsonb', default: () => `'["olla", "surface"]'` })
   treatments: string[];
 
   @Column({ type: 'text', default: '' })
