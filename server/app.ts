@@ -18,6 +18,7 @@ import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { adminRoutes } from './routes/admin.routes';
 import { authRoutes, defaultAuthLimits, type AuthLimits } from './routes/auth.routes';
 import { cohortRoutes } from './routes/cohorts.routes';
+import { exportRoutes } from './routes/export.routes';
 import { gardenRoutes } from './routes/gardens.routes';
 import { logRoutes } from './routes/logs.routes';
 import { potRoutes } from './routes/pots.routes';
@@ -51,6 +52,7 @@ export function buildRouteSpecs(ctx: AppContext, authLimits: AuthLimits = defaul
     ...trialRoutes(ctx),
     ...potRoutes(ctx),
     ...logRoutes(ctx),
+    ...exportRoutes(ctx),
   ];
 }
 

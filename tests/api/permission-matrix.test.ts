@@ -130,6 +130,7 @@ const paramFixture: Record<string, () => string> = {
   observationId: () => ids.observationId!,
   photoId: () => ids.photoId!,
   weatherDayId: () => ids.weatherDayId!,
+  table: () => 'water-events',
 };
 
 function fillPath(path: string) {

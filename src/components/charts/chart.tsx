@@ -1,28 +1,11 @@
 import { lazy, Suspense, type ReactNode } from 'react';
 import type { VisualizationSpec } from 'vega-embed';
+import { chartConfig } from '@shared/charts/trial-charts';
+
+/** The treatment colours and scale live with the chart specs in shared/, used by server renders too. */
+export { treatmentColours, treatmentScale } from '@shared/charts/trial-charts';
 
 const VegaChart = lazy(() => import('./vega-chart'));
-
-/** Seepwise's two treatment colours, the same in every chart (always with a legend or label too). */
-export const treatmentColours = { olla: '#4a7642', surface: '#3b5f8a' } as const;
-
-export function treatmentScale(treatments: string[]) {
-  const extra = ['#b5562f', '#8a6f48', '#7c3820', '#5d83ae'];
-  let i = 0;
-  return {
-    domain: treatments,
-    range: treatments.map((t) => (t in treatmentColours ? treatmentColours[t as keyof typeof treatmentColours] : (extra[i++ % extra.length] as string))),
-  };
-}
-
-/** Base config: Plex Sans, calm axes, our ink colours. */
-export const chartConfig = {
-  font: 'IBM Plex Sans',
-  background: '#ffffff',
-  axis: { labelColor: '#2b241d', titleColor: '#2b241d', gridColor: '#ede1cd', domainColor: '#8a7d6e', tickColor: '#8a7d6e', labelFontSize: 12, titleFontSize: 12 },
-  legend: { labelColor: '#2b241d', titleColor: '#2b241d', labelFontSize: 12, titleFontSize: 12 },
-  view: { stroke: null },
-} as const;
 
 /**
  * A chart with its one-line takeaway above it and a text alternative (a table) in a

@@ -2,7 +2,8 @@ import type { VisualizationSpec } from 'vega-embed';
 import { describeComparison } from '@shared/analysis/narrative';
 import { pairedSampleSize } from '@shared/analysis/power';
 import type { Comparison, PairedMetric } from '@shared/analysis/trial-analysis';
-import { Chart, treatmentScale } from '@/components/charts/chart';
+import { cumulativeWaterSpec, harvestVsWaterSpec, moistureSpec, pairedDifferenceSpec, weeklyNeedSpec } from '@shared/charts/trial-charts';
+import { Chart } from '@/components/charts/chart';
 import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
 import { useUnits } from '@/lib/units';
@@ -72,31 +73,7 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
   const controlDepth = data.treatments.find((t) => t.treatment === c.control)?.depthMm ?? 0;
   const pairsFor20 = sdForPlan && controlDepth > 0 ? pairedSampleSize({ meanDifference: 0.2 * controlDepth, sdDifference: sdForPlan }) : null;
 
-  const diffs = c.pairs.map((p) => ({ pair: p.blockKey, difference: units.show(p.waterMm[0] - p.waterMm[1], 'length-small') }));
-  const ciRow = water.kind === 'test' && !water.result.constantDifferences ? { lo: units.show(water.result.ci[0], 'length-small'), hi: units.show(water.result.ci[1], 'length-small'), mean: units.show(water.result.meanDifference, 'length-small') } : null;
-  const diffSpec: VisualizationSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    width: 'container',
-    height: 220,
-    layer: [
-      {
-        data: { values: diffs },
-        mark: { type: 'point', filled: true, size: 80, color: '#4a7642' },
-        encoding: {
-          y: { field: 'pair', type: 'nominal', title: 'Pair' },
-          x: { field: 'difference', type: 'quantitative', title: `Water difference, ${c.treatment} − ${c.control} (${units.label('length-small')})` },
-          tooltip: [{ field: 'pair' }, { field: 'difference', format: '.1f' }],
-        },
-      },
-      { data: { values: [{ x: 0 }] }, mark: { type: 'rule', color: '#8a7d6e', strokeDash: [4, 4] }, encoding: { x: { field: 'x', type: 'quantitative' } } },
-      ...(ciRow
-        ? [
-            { data: { values: [ciRow] }, mark: { type: 'rect' as const, color: '#b5562f', opacity: 0.15 }, encoding: { x: { field: 'lo', type: 'quantitative' as const }, x2: { field: 'hi' } } },
-            { data: { values: [ciRow] }, mark: { type: 'rule' as const, color: '#9a4525', strokeWidth: 2 }, encoding: { x: { field: 'mean', type: 'quantitative' as const } } },
-          ]
-        : []),
-    ],
-  } as VisualizationSpec;
+  const diffSpec = pairedDifferenceSpec(data, { units: units.system, width: 'container' }, data.comparisons.indexOf(c));
 
   return (
     <section className="space-y-4" aria-label={`${c.treatment} against ${c.control}`}>
@@ -146,7 +123,7 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
           ≈ marks a Wilcoxon p-value from the normal approximation (ties or zero differences), as R does by default.
         </p>
       </div>
-      {c.pairs.length ? (
+      {diffSpec ? (
         <Chart
           title="Water difference in each pair"
           takeaway={
@@ -154,7 +131,7 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
               ? `Each dot is a pair; the shaded band is the 95% confidence interval of the mean difference (${depth(water.result.ci[0])} to ${depth(water.result.ci[1])}).`
               : 'Each dot is a pair. With fewer than two pairs there is no interval.'
           }
-          spec={diffSpec}
+          spec={diffSpec as VisualizationSpec}
           fileName="paired-differences"
           alternative={
             <table className="text-sm">
@@ -196,94 +173,11 @@ export function ResultsTab({ trialId, treatments }: { trialId: string; treatment
   if (analysis.isPending) return <p role="status">Computing the results…</p>;
   if (analysis.isError) return <Alert tone="error">{analysis.error.message}</Alert>;
   const data = analysis.data;
-  const colour = treatmentScale(treatments);
-  const vol = (l: number) => units.show(l, 'volume');
-
-  const cumulativeSpec: VisualizationSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    width: 'container',
-    height: 260,
-    data: { values: data.cumulative.map((r) => ({ ...r, value: vol(r.cumulativeL), treatment: r.treatment ?? 'unassigned' })) },
-    mark: { type: 'line', interpolate: 'step-after' },
-    encoding: {
-      x: { field: 'day', type: 'temporal', title: 'Date' },
-      y: { field: 'value', type: 'quantitative', title: `Water applied so far (${units.label('volume')})` },
-      color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale: colour },
-      detail: { field: 'label' },
-      tooltip: [{ field: 'label', title: 'Plot' }, { field: 'day', type: 'temporal' }, { field: 'value', format: '.1f', title: units.label('volume') }],
-    },
-  } as VisualizationSpec;
-
-  const points = data.plots.map((p) => ({ label: p.label, treatment: p.treatment ?? 'unassigned', waterM3: p.waterL / 1000, harvestKg: p.harvestKg }));
-  const maxW = Math.max(0.001, ...points.map((p) => p.waterM3));
-  const wueLines = [5, 10, 20].flatMap((w) => [
-    { wue: `${w} kg/m³`, waterM3: 0, harvestKg: 0 },
-    { wue: `${w} kg/m³`, waterM3: maxW, harvestKg: w * maxW },
-  ]);
-  const harvestSpec: VisualizationSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    width: 'container',
-    height: 260,
-    layer: [
-      {
-        data: { values: wueLines },
-        mark: { type: 'line', strokeDash: [3, 3], color: '#c9ab7f' },
-        encoding: { x: { field: 'waterM3', type: 'quantitative', title: 'Water applied (m³)' }, y: { field: 'harvestKg', type: 'quantitative', title: 'Harvest (kg)' }, detail: { field: 'wue' } },
-      },
-      {
-        data: { values: points },
-        mark: { type: 'point', filled: true, size: 90 },
-        encoding: {
-          x: { field: 'waterM3', type: 'quantitative' },
-          y: { field: 'harvestKg', type: 'quantitative' },
-          color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale: colour },
-          shape: { field: 'treatment', type: 'nominal', title: 'Treatment' },
-          tooltip: [{ field: 'label', title: 'Plot' }, { field: 'waterM3', format: '.3f' }, { field: 'harvestKg', format: '.2f' }],
-        },
-      },
-    ],
-  } as VisualizationSpec;
-
-  const weekly = data.cropWater.weekly.flatMap((w) => [
-    ...Object.entries(w.appliedMm).map(([t, mm]) => ({ week: w.weekStart, series: `applied: ${t}`, value: units.show(mm, 'length-small') })),
-    ...(w.etcMm !== null ? [{ week: w.weekStart, series: 'crop need (ETc)', value: units.show(w.etcMm, 'length-small') }] : []),
-  ]);
-  const weeklySpec: VisualizationSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    width: 'container',
-    height: 240,
-    data: { values: weekly },
-    mark: { type: 'line', point: true },
-    encoding: {
-      x: { field: 'week', type: 'temporal', title: 'Week starting' },
-      y: { field: 'value', type: 'quantitative', title: `Per week (${units.label('length-small')})` },
-      color: {
-        field: 'series',
-        type: 'nominal',
-        title: null,
-        scale: { domain: [...treatments.map((t) => `applied: ${t}`), 'crop need (ETc)'], range: [...colour.range, '#b5562f'] },
-      },
-      strokeDash: { field: 'series', type: 'nominal', legend: null },
-    },
-  } as VisualizationSpec;
-
-  const moistureSpec: VisualizationSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
-    data: { values: data.moisture.series },
-    facet: { row: { field: 'method', type: 'nominal', title: 'Method (each on its own scale)' } },
-    resolve: { scale: { y: 'independent' } },
-    spec: {
-      width: 600,
-      height: 140,
-      mark: { type: 'line', point: true },
-      encoding: {
-        x: { field: 'day', type: 'temporal', title: 'Date' },
-        y: { field: 'value', type: 'quantitative', title: 'Daily mean' },
-        color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale: colour },
-      },
-    },
-  } as VisualizationSpec;
-
+  const o = { units: units.system, width: 'container' as const };
+  const cumulativeSpec = cumulativeWaterSpec(data, treatments, o) as VisualizationSpec;
+  const harvestSpec = harvestVsWaterSpec(data, treatments, o) as VisualizationSpec;
+  const weeklySpec = weeklyNeedSpec(data, treatments, o) as VisualizationSpec | null;
+  const moistureChart = moistureSpec(data, treatments, o) as VisualizationSpec | null;
   const cw = data.cropWater;
   return (
     <div className="space-y-6">
@@ -413,7 +307,7 @@ export function ResultsTab({ trialId, treatments }: { trialId: string; treatment
             </p>
           </Card>
         </div>
-        {weekly.length ? (
+        {weeklySpec ? (
           <Chart
             title="Weekly crop water need against water applied"
             takeaway="Lines below the crop-need line mean less water went on than the crop used at reference conditions; the pots feed roots directly, so less is expected."
@@ -470,7 +364,7 @@ export function ResultsTab({ trialId, treatments }: { trialId: string; treatment
           <Chart
             title="Soil moisture per treatment"
             takeaway="Daily means per treatment; each method keeps its own scale and is never mixed with another."
-            spec={moistureSpec}
+            spec={moistureChart!}
             fileName="soil-moisture"
             alternative={
               <table className="text-sm">

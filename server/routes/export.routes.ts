@@ -1,0 +1,52 @@
+import type { AppContext } from '../context';
+import { access } from '../http/access';
+import { handle, route, type RouteSpec } from '../http/route';
+import { AppError } from '../lib/app-error';
+import { findExportTable } from '../services/export-tables';
+import { exportService } from '../services/export.service';
+
+function checkTable(table: string) {
+  if (table !== 'data-dictionary' && !findExportTable(table)) throw AppError.notFound('Export table');
+}
+
+export function exportRoutes(ctx: AppContext): RouteSpec[] {
+  const svc = exportService(ctx);
+  return [
+    route(
+      'get',
+      '/trials/:trialId/export/:table.csv',
+      access.reader('trial', 'trialId'),
+      handle(async (req, res) => {
+        const trialId = String(req.params.trialId);
+        const table = String(req.params.table);
+        checkTable(table);
+        const scope = { kind: 'trial' as const, trialId };
+        const file = `seepwise-trial-${trialId.slice(0, 8)}-${table}.csv`;
+        if (table === 'data-dictionary') {
+          res.setHeader('Content-Disposition', `attachment; filename="${file}"`);
+          res.type('text/csv; charset=utf-8').send(svc.dictionaryCsv(scope));
+          return;
+        }
+        await svc.streamTable(res, scope, table, file);
+      }),
+    ),
+    route(
+      'get',
+      '/cohorts/:cohortId/export/:table.csv',
+      access.cohortMember(),
+      handle(async (req, res) => {
+        const cohortId = String(req.params.cohortId);
+        const table = String(req.params.table);
+        checkTable(table);
+        const scope = { kind: 'cohort' as const, cohortId };
+        const file = `seepwise-cohort-${cohortId.slice(0, 8)}-${table}.csv`;
+        if (table === 'data-dictionary') {
+          res.setHeader('Content-Disposition', `attachment; filename="${file}"`);
+          res.type('text/csv; charset=utf-8').send(svc.dictionaryCsv(scope));
+          return;
+        }
+        await svc.streamTable(res, scope, table, file);
+      }),
+    ),
+  ];
+}
