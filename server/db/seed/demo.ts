@@ -1,11 +1,13 @@
 /**
  * The demo scenario: an invented dryland town, Saltbush Bend, whose garden network runs a
- * season of olla trials. Every place, person and number here is made up.
+ * season of olla trials. Every place, person and number here is made up; the season itself
+ * (gardens, trials, logs) is generated deterministically by season.ts from the plans in cast.ts.
  */
 import type { DataSource } from 'typeorm';
 import { hashPassword } from '../../auth/passwords';
 import type { Logger } from '../../lib/logger';
 import { newJoinCode } from '../../services/cohorts.service';
+import { seedSeason } from './season';
 
 export const DEMO_PASSWORD = 'olla-demo-2026';
 
@@ -19,6 +21,13 @@ export const demoAccounts = [
   { email: 'wendell@saltbush.example', displayName: 'Wendell Pike', role: 'grower' },
   { email: 'priya@saltbush.example', displayName: 'Priya Dunmore', role: 'grower' },
   { email: 'student@saltbush.example', displayName: 'Ada Student', role: 'grower' },
+  { email: 'odalys@saltbush.example', displayName: 'Odalys Ferrant', role: 'grower' },
+  { email: 'bram@saltbush.example', displayName: 'Bram Kettleson', role: 'grower' },
+  { email: 'lupe@saltbush.example', displayName: 'Lupe Arrowood', role: 'grower', language: 'es' },
+  { email: 'caspian@saltbush.example', displayName: 'Caspian Reyes-Moll', role: 'grower' },
+  { email: 'nettie@saltbush.example', displayName: 'Nettie Vance-Orozco', role: 'grower' },
+  { email: 'idris@saltbush.example', displayName: 'Idris Calloway', role: 'grower' },
+  { email: 'maren@saltbush.example', displayName: 'Maren Sotelo', role: 'grower' },
 ] as const;
 
 /** Loads the invented demo scenario into an empty database (first start, `npm run db:seed`). */
@@ -58,12 +67,22 @@ export async function seedDemoIfEmpty(dataSource: DataSource, logger: Logger): P
       [network!.id, 'ines@saltbush.example', 'contributor', 'Grower R31'],
       [network!.id, 'wendell@saltbush.example', 'contributor', 'Grower T44'],
       [network!.id, 'priya@saltbush.example', 'contributor', 'Grower M58'],
+      [network!.id, 'odalys@saltbush.example', 'contributor', 'Grower X12'],
+      [network!.id, 'bram@saltbush.example', 'contributor', 'Grower D23'],
+      [network!.id, 'lupe@saltbush.example', 'contributor', 'Grower F16'],
+      [network!.id, 'caspian@saltbush.example', 'contributor', 'Grower L40'],
+      [network!.id, 'nettie@saltbush.example', 'contributor', 'Grower N05'],
+      [network!.id, 'idris@saltbush.example', 'contributor', 'Grower S61'],
+      [network!.id, 'maren@saltbush.example', 'contributor', 'Grower V27'],
       [network!.id, 'student@saltbush.example', 'observer', 'Observer H9'],
       [klass!.id, 'student@saltbush.example', 'observer', 'Observer Q2'],
     ];
     for (const [cohortId, email, role, pseudonym] of members) {
       await tx.query(`INSERT INTO cohort_memberships (cohort_id, user_id, role, pseudonym) VALUES ($1, $2, $3, $4)`, [cohortId, ids[email], role, pseudonym]);
     }
+    // The 2026 season: gardens, trials, pots, weather and every log, generated from cast.ts.
+    const counts = await seedSeason(tx, ids, network!.id);
+    logger.info({ counts }, 'Demo season generated.');
   });
   return true;
 }

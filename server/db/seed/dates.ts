@@ -1,0 +1,41 @@
+/**
+ * Calendar helpers for the demo season. Days are ISO dates ('2026-07-14'); instants are UTC ISO
+ * strings. Saltbush Bend keeps a clock six hours behind UTC through the growing season
+ * (an invented town; the offset only places morning and evening walks at believable hours).
+ */
+export const LOCAL_UTC_OFFSET_HOURS = -6;
+
+const DAY_MS = 86_400_000;
+
+export function addDays(day: string, days: number): string {
+  return new Date(Date.parse(`${day}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);
+}
+
+export function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
+}
+
+/** Every day from `from` to `to`, both included. */
+export function eachDay(from: string, to: string): string[] {
+  const out: string[] = [];
+  for (let d = from; d <= to; d = addDays(d, 1)) out.push(d);
+  return out;
+}
+
+export function dayOfYear(day: string): number {
+  return daysBetween(`${day.slice(0, 4)}-01-01`, day) + 1;
+}
+
+/** A local wall-clock time in Saltbush Bend as a UTC ISO instant. */
+export function localTime(day: string, hour: number, minute = 0): string {
+  const ms = Date.parse(`${day}T00:00:00Z`) + ((hour - LOCAL_UTC_OFFSET_HOURS) * 60 + minute) * 60_000;
+  return new Date(ms).toISOString();
+}
+
+export function addMinutes(instant: string, minutes: number): string {
+  return new Date(Date.parse(instant) + minutes * 60_000).toISOString();
+}
+
+export function within(day: string, range: { from: string; to: string } | undefined): boolean {
+  return range !== undefined && day >= range.from && day <= range.to;
+}
