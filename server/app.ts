@@ -20,6 +20,7 @@ import { authRoutes, defaultAuthLimits, type AuthLimits } from './routes/auth.ro
 import { cohortRoutes } from './routes/cohorts.routes';
 import { exportRoutes } from './routes/export.routes';
 import { gardenRoutes } from './routes/gardens.routes';
+import { importRoutes } from './routes/import.routes';
 import { logRoutes } from './routes/logs.routes';
 import { potRoutes } from './routes/pots.routes';
 import { trialRoutes } from './routes/trials.routes';
@@ -53,6 +54,7 @@ export function buildRouteSpecs(ctx: AppContext, authLimits: AuthLimits = defaul
     ...potRoutes(ctx),
     ...logRoutes(ctx),
     ...exportRoutes(ctx),
+    ...importRoutes(ctx),
   ];
 }
 
@@ -110,7 +112,10 @@ export function createApp(deps: AppDeps) {
 
   const api = express.Router();
   api.use(healthRoutes(dataSource));
-  api.use(express.json({ limit: '1mb' }));
+  // Imports carry a whole parsed file (up to ~60 MB of JSON); every other request stays small.
+  const smallJson = express.json({ limit: '1mb' });
+  const largeJson = express.json({ limit: '80mb' });
+  api.use((req, res, next) => (req.method === 'POST' && /^\/trials\/[^/]+\/import$/.test(req.path) ? largeJson : smallJson)(req, res, next));
   // Sessions get their own small pool so a burst of API queries cannot starve sign-in checks.
   const sessionPool = new pg.Pool({ connectionString: dataSource.options.type === 'postgres' ? (dataSource.options.url as string) : undefined, max: 4 });
   sessionPool.on('error', (err) => logger.warn({ err: err.message }, 'session pool error'));

@@ -155,7 +155,9 @@ export function findExportTable(name: string): ExportTable | undefined {
 /** The SELECT for one table and scope. Ids are inlined as escaped literals because COPY takes no parameters. */
 export function exportSelect(table: ExportTable, scope: ExportScope, literal: (v: string) => string): string {
   const cols = table.columns(scope);
-  const select = cols.map((c) => `${c.sql} AS "${c.name}"`).join(', ');
+  // COPY writes booleans as t/f; spell them out for spreadsheets and readers.
+  const expr = (c: ExportColumn) => (c.type === 'boolean' ? `CASE WHEN ${c.sql} THEN 'true' ELSE 'false' END` : c.sql);
+  const select = cols.map((c) => `${expr(c)} AS "${c.name}"`).join(', ');
   if (scope.kind === 'trial') {
     return `SELECT ${select} FROM ${table.from} WHERE t.id = ${literal(scope.trialId)} ORDER BY ${table.orderBy}`;
   }

@@ -269,8 +269,9 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   // Cumulative water per plot (daily totals arrive summed; running sums here).
   const byPlot = new Map(plots.map((p) => [p.id, p]));
   const running = new Map<string, number>();
+  const labelOf = (id: string) => byPlot.get(id)?.label ?? id;
   const cumulative = [...input.dailyWater]
-    .sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : a.plotId.localeCompare(b.plotId)))
+    .sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : labelOf(a.plotId).localeCompare(labelOf(b.plotId), 'en', { numeric: true })))
     .map((r) => {
       const total = (running.get(r.plotId) ?? 0) + r.litres;
       running.set(r.plotId, total);

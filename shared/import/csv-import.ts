@@ -1,0 +1,289 @@
+/**
+ * Turning a spreadsheet or logger CSV into Seepwise records: guessing which column is which,
+ * detecting date formats (and refusing to guess when 03/04/2027 could be two days), converting
+ * units to SI, and listing every row-level problem with its line and column. Pure: runs in the
+ * browser's parsing worker, and its output is validated again on the server.
+ */
+import { fromDisplay, type Quantity } from '../units';
+
+export const importKinds = ['water-events', 'moisture-readings', 'harvests', 'weather-days'] as const;
+export type ImportKind = (typeof importKinds)[number];
+
+export type FieldType = 'text' | 'number' | 'integer' | 'boolean' | 'date' | 'datetime';
+
+export interface ImportField {
+  /** The record field the column fills (plotLabel stands for the plot). */
+  key: string;
+  label: string;
+  type: FieldType;
+  required: boolean;
+  /** Header names (lower case, without spaces or punctuation) that map to this field. */
+  aliases: string[];
+  /** Quantity with a unit choice; values are converted to SI. */
+  quantity?: Quantity;
+  /** Extra unit options beyond metric/us for this field. */
+  units?: string[];
+}
+
+export const importFields: Record<ImportKind, ImportField[]> = {
+  'water-events': [
+    { key: 'plotLabel', label: 'Plot', type: 'text', required: true, aliases: ['plot', 'plotlabel', 'bed', 'parcela'] },
+    { key: 'occurredAt', label: 'Date and time', type: 'datetime', required: true, aliases: ['occurredat', 'date', 'datetime', 'time', 'when', 'fecha', 'timestamp'] },
+    { key: 'kind', label: 'Kind (olla_refill or surface)', type: 'text', required: true, aliases: ['kind', 'type', 'method', 'tipo'] },
+    { key: 'volumeL', label: 'Volume', type: 'number', required: true, quantity: 'volume', aliases: ['volumel', 'volume', 'litres', 'liters', 'gallons', 'gal', 'volumen', 'amount'] },
+    { key: 'source', label: 'Source', type: 'text', required: false, aliases: ['source', 'watersource', 'fuente'] },
+    { key: 'fertiliser', label: 'Fertiliser added', type: 'boolean', required: false, aliases: ['fertiliser', 'fertilizer', 'fertilised', 'fertilizante'] },
+    { key: 'notes', label: 'Notes', type: 'text', required: false, aliases: ['notes', 'note', 'comment', 'notas'] },
+  ],
+  'moisture-readings': [
+    { key: 'plotLabel', label: 'Plot', type: 'text', required: true, aliases: ['plot', 'plotlabel', 'bed', 'parcela', 'sensor'] },
+    { key: 'takenAt', label: 'Date and time', type: 'datetime', required: true, aliases: ['takenat', 'date', 'datetime', 'time', 'timestamp', 'fecha'] },
+    { key: 'method', label: 'Method (vwc, tensiometer, probe_index)', type: 'text', required: true, aliases: ['method', 'metodo', 'sensor_type', 'sensortype'] },
+    { key: 'depthCm', label: 'Depth (cm)', type: 'number', required: true, aliases: ['depthcm', 'depth', 'profundidad'] },
+    { key: 'value', label: 'Reading', type: 'number', required: true, aliases: ['value', 'reading', 'vwc', 'moisture', 'kpa', 'valor'] },
+  ],
+  harvests: [
+    { key: 'plotLabel', label: 'Plot', type: 'text', required: true, aliases: ['plot', 'plotlabel', 'bed', 'parcela'] },
+    { key: 'harvestedOn', label: 'Day', type: 'date', required: true, aliases: ['harvestedon', 'date', 'day', 'fecha'] },
+    { key: 'freshKg', label: 'Fresh mass', type: 'number', required: true, quantity: 'mass', aliases: ['freshkg', 'fresh', 'mass', 'weight', 'kg', 'lb', 'peso'] },
+    { key: 'marketableKg', label: 'Marketable mass', type: 'number', required: false, quantity: 'mass', aliases: ['marketablekg', 'marketable', 'comercial'] },
+    { key: 'count', label: 'Count', type: 'integer', required: false, aliases: ['count', 'fruits', 'number', 'cantidad'] },
+    { key: 'notes', label: 'Notes', type: 'text', required: false, aliases: ['notes', 'note', 'comment', 'notas'] },
+  ],
+  'weather-days': [
+    { key: 'day', label: 'Day', type: 'date', required: true, aliases: ['day', 'date', 'fecha'] },
+    { key: 'tMinC', label: 'Minimum temperature', type: 'number', required: true, quantity: 'temperature', aliases: ['tminc', 'tmin', 'min', 'mintemp', 'minimum'] },
+    { key: 'tMaxC', label: 'Maximum temperature', type: 'number', required: true, quantity: 'temperature', aliases: ['tmaxc', 'tmax', 'max', 'maxtemp', 'maximum'] },
+    { key: 'rainMm', label: 'Rain', type: 'number', required: false, quantity: 'length-small', aliases: ['rainmm', 'rain', 'precip', 'precipitation', 'lluvia'] },
+    { key: 'rhMinPct', label: 'Humidity min (%)', type: 'number', required: false, aliases: ['rhminpct', 'rhmin', 'humiditymin'] },
+    { key: 'rhMaxPct', label: 'Humidity max (%)', type: 'number', required: false, aliases: ['rhmaxpct', 'rhmax', 'humiditymax'] },
+    { key: 'windSpeedMs', label: 'Wind at 2 m (m/s)', type: 'number', required: false, aliases: ['windspeedms', 'wind', 'windspeed', 'viento'] },
+    { key: 'sunshineHours', label: 'Sunshine hours', type: 'number', required: false, aliases: ['sunshinehours', 'sunshine', 'sun'] },
+  ],
+};
+
+/** Which column index fills each field; undefined = not imported. */
+export type ColumnMapping = Record<string, number | undefined>;
+
+function normaliseHeader(h: string): string {
+  return h
+    .toLowerCase()
+    .normalize('NFD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .replace(/\(.*?\)/g, '')
+    .replace(/[^a-z0-9]/g, '');
+}
+
+/** Maps headers to fields by name; each header used once, exact aliases first. */
+export function guessMapping(headers: string[], kind: ImportKind): ColumnMapping {
+  const norm = headers.map(normaliseHeader);
+  const used = new Set<number>();
+  const mapping: ColumnMapping = {};
+  for (const f of importFields[kind]) {
+    const idx = norm.findIndex((h, i) => !used.has(i) && (h === normaliseHeader(f.key) || f.aliases.includes(h)));
+    if (idx >= 0) {
+      mapping[f.key] = idx;
+      used.add(idx);
+    }
+  }
+  return mapping;
+}
+
+/** Unit guessed from a header such as "volume (gal)" or "temp_f". */
+export function guessUnit(header: string, quantity: Quantity): 'metric' | 'us' {
+  const h = header.toLowerCase();
+  if (quantity === 'volume') return /gal/.test(h) ? 'us' : 'metric';
+  if (quantity === 'mass') return /\blb|pound|lbs/.test(h) ? 'us' : 'metric';
+  if (quantity === 'temperature') return /°f|\(f\)|_f\b|fahrenheit/.test(h) ? 'us' : 'metric';
+  if (quantity === 'length-small') return /\bin\b|inch|\(in\)/.test(h) ? 'us' : 'metric';
+  return 'metric';
+}
+
+export type DateFormat = 'iso' | 'dmy' | 'mdy';
+
+const isoRe = /^(\d{4})-(\d{2})-(\d{2})(?:[T ](\d{1,2}):(\d{2})(?::(\d{2})(?:\.\d+)?)?\s*(Z|[+-]\d{2}:?\d{2})?)?$/;
+const slashRe = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})(?:[ T](\d{1,2}):(\d{2})(?::(\d{2}))?)?$/;
+
+function validYmd(y: number, m: number, d: number): boolean {
+  if (m < 1 || m > 12 || d < 1) return false;
+  return d <= new Date(Date.UTC(y, m, 0)).getUTCDate();
+}
+
+export interface DateDetection {
+  /** The format to use, or null when none fits every sample. */
+  format: DateFormat | null;
+  /** True when both day-first and month-first fit every sample: the user must choose. */
+  ambiguous: boolean;
+  candidates: DateFormat[];
+}
+
+/** Tries each format on the samples; a format is a candidate only if every sample fits it. */
+export function detectDateFormat(samples: string[]): DateDetection {
+  const values = samples.map((s) => s.trim()).filter(Boolean);
+  const fits = (f: DateFormat) => values.length > 0 && values.every((v) => parseDateParts(v, f) !== null);
+  const candidates = (['iso', 'dmy', 'mdy'] as DateFormat[]).filter(fits);
+  const ambiguous = candidates.includes('dmy') && candidates.includes('mdy');
+  return { format: ambiguous ? null : (candidates[0] ?? null), ambiguous, candidates };
+}
+
+interface DateParts {
+  y: number;
+  m: number;
+  d: number;
+  hh: number;
+  mm: number;
+  ss: number;
+  zone: string | null;
+}
+
+function parseDateParts(value: string, format: DateFormat): DateParts | null {
+  const v = value.trim();
+  if (format === 'iso') {
+    const m = isoRe.exec(v);
+    if (!m) return null;
+    const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+    if (!validYmd(y, mo, d)) return null;
+    return { y, m: mo, d, hh: Number(m[4] ?? 0), mm: Number(m[5] ?? 0), ss: Number(m[6] ?? 0), zone: m[7] ?? null };
+  }
+  const m = slashRe.exec(v);
+  if (!m) return null;
+  const a = Number(m[1]);
+  const b = Number(m[2]);
+  const y = Number(m[3]);
+  const [d, mo] = format === 'dmy' ? [a, b] : [b, a];
+  if (!validYmd(y, mo, d)) return null;
+  return { y, m: mo, d, hh: Number(m[4] ?? 0), mm: Number(m[5] ?? 0), ss: Number(m[6] ?? 0), zone: null };
+}
+
+const pad = (n: number, w = 2) => String(n).padStart(w, '0');
+
+/** A calendar day 'YYYY-MM-DD', or null. */
+export function parseDay(value: string, format: DateFormat): string | null {
+  const p = parseDateParts(value, format);
+  return p ? `${p.y}-${pad(p.m)}-${pad(p.d)}` : null;
+}
+
+/**
+ * An instant as ISO 8601 UTC. Times without a zone are local to the garden: `offsetMinutes` is
+ * that local time's offset from UTC (e.g. −360 for UTC−6).
+ */
+export function parseInstant(value: string, format: DateFormat, offsetMinutes: number): string | null {
+  const p = parseDateParts(value, format);
+  if (!p) return null;
+  if (p.hh > 23 || p.mm > 59 || p.ss > 59) return null;
+  let ms = Date.UTC(p.y, p.m - 1, p.d, p.hh, p.mm, p.ss);
+  if (p.zone && p.zone !== 'Z') {
+    const sign = p.zone.startsWith('-') ? -1 : 1;
+    const digits = p.zone.replace(/[^0-9]/g, '');
+    ms -= sign * (Number(digits.slice(0, 2)) * 60 + Number(digits.slice(2, 4))) * 60_000;
+  } else if (!p.zone) {
+    ms -= offsetMinutes * 60_000;
+  }
+  return new Date(ms).toISOString();
+}
+
+export interface RowError {
+  /** 1-based line in the file, counting the header as line 1. */
+  line: number;
+  column: string;
+  reason: string;
+}
+
+export interface ImportOptions {
+  kind: ImportKind;
+  mapping: ColumnMapping;
+  /** Unit system per quantity field key. */
+  units: Record<string, 'metric' | 'us'>;
+  dateFormat: DateFormat;
+  offsetMinutes: number;
+  headers: string[];
+}
+
+export type NormalisedRow = Record<string, string | number | boolean | null> & { line: number };
+
+function parseNumber(raw: string): number | null {
+  // Accept a decimal comma when there is no other separator ("2,5").
+  const s = raw.trim().replace(/\s/g, '');
+  const v = /^-?\d+,\d+$/.test(s) ? Number(s.replace(',', '.')) : Number(s);
+  return s === '' || !Number.isFinite(v) ? null : v;
+}
+
+function parseBoolean(raw: string): boolean | null {
+  const s = raw.trim().toLowerCase();
+  if (['yes', 'y', 'true', 't', '1', 'si', 'sí', 'x'].includes(s)) return true;
+  if (['no', 'n', 'false', 'f', '0', ''].includes(s)) return false;
+  return null;
+}
+
+const kindAliases: Record<string, string> = { refill: 'olla_refill', olla: 'olla_refill', olla_refill: 'olla_refill', ollarefill: 'olla_refill', surface: 'surface', can: 'surface', hose: 'surface', superficie: 'surface' };
+
+/**
+ * Converts raw rows into records with SI values, listing every problem (line, column, reason).
+ * Field-level rules of the record itself (ranges, allowed values) are checked again on the server.
+ */
+export function normaliseRows(rows: string[][], o: ImportOptions): { records: NormalisedRow[]; errors: RowError[] } {
+  const fields = importFields[o.kind];
+  const errors: RowError[] = [];
+  const records: NormalisedRow[] = [];
+  const missing = fields.filter((f) => f.required && o.mapping[f.key] === undefined);
+  if (missing.length) {
+    return { records, errors: missing.map((f) => ({ line: 1, column: f.label, reason: `No column is mapped to "${f.label}", which is required.` })) };
+  }
+  rows.forEach((row, i) => {
+    const line = i + 2;
+    if (row.length !== o.headers.length) {
+      errors.push({ line, column: '', reason: `This row has ${row.length} field${row.length === 1 ? '' : 's'}; the header has ${o.headers.length}.` });
+      return;
+    }
+    const rec: NormalisedRow = { line };
+    let ok = true;
+    for (const f of fields) {
+      const idx = o.mapping[f.key];
+      if (idx === undefined) continue;
+      const raw = (row[idx] ?? '').trim();
+      const column = o.headers[idx] ?? f.label;
+      const fail = (reason: string) => {
+        errors.push({ line, column, reason });
+        ok = false;
+      };
+      if (raw === '') {
+        // An empty optional cell is left out, so the record's own default applies.
+        if (f.required) fail(`${f.label} is empty.`);
+        continue;
+      }
+      switch (f.type) {
+        case 'text':
+          rec[f.key] = f.key === 'kind' ? (kindAliases[raw.toLowerCase().replace(/[\s-]/g, '_')] ?? raw) : raw;
+          break;
+        case 'boolean': {
+          const b = parseBoolean(raw);
+          if (b === null) fail(`"${raw}" is not yes or no.`);
+          else rec[f.key] = b;
+          break;
+        }
+        case 'number':
+        case 'integer': {
+          const n = parseNumber(raw);
+          if (n === null) fail(`"${raw}" is not a number.`);
+          else if (f.type === 'integer' && !Number.isInteger(n)) fail(`"${raw}" is not a whole number.`);
+          else rec[f.key] = f.quantity ? fromDisplay(n, f.quantity, o.units[f.key] ?? 'metric') : n;
+          break;
+        }
+        case 'date': {
+          const d = parseDay(raw, o.dateFormat);
+          if (!d) fail(`"${raw}" is not a date in the chosen format.`);
+          else rec[f.key] = d;
+          break;
+        }
+        case 'datetime': {
+          const d = parseInstant(raw, o.dateFormat, o.offsetMinutes);
+          if (!d) fail(`"${raw}" is not a date and time in the chosen format.`);
+          else rec[f.key] = d;
+          break;
+        }
+      }
+    }
+    if (ok) records.push(rec);
+  });
+  return { records, errors };
+}

@@ -1,0 +1,78 @@
+import { describe, expect, it } from 'vitest';
+import { detectDateFormat, guessMapping, guessUnit, normaliseRows, parseInstant } from '@shared/import/csv-import';
+
+describe('detectDateFormat', () => {
+  it.each([
+    [['2027-05-03', '2027-05-04T07:30'], 'iso', false],
+    [['13/04/2027', '03/04/2027'], 'dmy', false],
+    [['04/13/2027', '04/03/2027'], 'mdy', false],
+    [['03/04/2027', '05/06/2027'], null, true],
+    [['yesterday'], null, false],
+  ])('%j → %s (ambiguous: %s)', (samples, format, ambiguous) => {
+    const d = detectDateFormat(samples);
+    expect(d.format).toBe(format);
+    expect(d.ambiguous).toBe(ambiguous);
+  });
+
+  it('refuses impossible days (31 April, 29 February 2027)', () => {
+    expect(detectDateFormat(['2027-04-31']).format).toBeNull();
+    expect(detectDateFormat(['29/02/2027']).candidates).toEqual([]);
+    expect(detectDateFormat(['29/02/2028']).candidates).toEqual(['dmy']); // 2028 is a leap year
+  });
+});
+
+describe('parseInstant', () => {
+  it('reads local times with the garden offset and honours explicit zones', () => {
+    expect(parseInstant('2027-06-01 07:00', 'iso', -360)).toBe('2027-06-01T13:00:00.000Z'); // UTC−6
+    expect(parseInstant('2027-06-01T07:00:00Z', 'iso', -360)).toBe('2027-06-01T07:00:00.000Z');
+    expect(parseInstant('2027-06-01T07:00:00+02:00', 'iso', 0)).toBe('2027-06-01T05:00:00.000Z');
+    expect(parseInstant('01/06/2027 07:00', 'dmy', 0)).toBe('2027-06-01T07:00:00.000Z');
+    expect(parseInstant('2027-06-01 25:00', 'iso', 0)).toBeNull();
+  });
+});
+
+describe('guessMapping and guessUnit', () => {
+  it('maps spreadsheet headers to fields, ignoring case, accents and units in brackets', () => {
+    const headers = ['Fecha', 'Parcela', 'Tipo', 'Volume (gal)', 'Notas', 'Extra'];
+    expect(guessMapping(headers, 'water-events')).toEqual({ occurredAt: 0, plotLabel: 1, kind: 2, volumeL: 3, notes: 4 });
+    expect(guessUnit('Volume (gal)', 'volume')).toBe('us');
+    expect(guessUnit('Tmax (°F)', 'temperature')).toBe('us');
+    expect(guessUnit('litres', 'volume')).toBe('metric');
+  });
+});
+
+describe('normaliseRows', () => {
+  const headers = ['date', 'plot', 'kind', 'volume', 'fertiliser'];
+  const base = { kind: 'water-events' as const, mapping: guessMapping(headers, 'water-events'), dateFormat: 'iso' as const, offsetMinutes: 0, headers };
+
+  it('converts gallons to litres with the exact US gallon (NIST Handbook 44: 3.785411784 L)', () => {
+    const { records, errors } = normaliseRows([['2027-06-01 07:00', 'A1', 'refill', '2', 'yes']], { ...base, units: { volumeL: 'us' } });
+    expect(errors).toEqual([]);
+    expect(records[0]).toMatchObject({ line: 2, plotLabel: 'A1', kind: 'olla_refill', volumeL: 7.570823568, fertiliser: true });
+  });
+
+  it('lists every row problem with its line and column', () => {
+    const { records, errors } = normaliseRows(
+      [
+        ['2027-06-01 07:00', 'A1', 'surface', 'lots', 'no'],
+        ['2027-06-31 07:00', 'A1', 'surface', '4', 'maybe'],
+        ['2027-06-02 07:00', 'A1', 'surface', '4', 'no', 'extra'],
+        ['2027-06-03 07:00', 'A1', 'surface', '2,5', ''],
+      ],
+      { ...base, units: {} },
+    );
+    expect(errors).toEqual([
+      { line: 2, column: 'volume', reason: '"lots" is not a number.' },
+      { line: 3, column: 'date', reason: '"2027-06-31 07:00" is not a date and time in the chosen format.' },
+      { line: 3, column: 'fertiliser', reason: '"maybe" is not yes or no.' },
+      { line: 4, column: '', reason: 'This row has 6 fields; the header has 5.' },
+    ]);
+    expect(records).toHaveLength(1);
+    expect(records[0]!.volumeL).toBe(2.5);
+  });
+
+  it('says which required field has no column', () => {
+    const { errors } = normaliseRows([['x']], { kind: 'water-events', mapping: {}, units: {}, dateFormat: 'iso', offsetMinutes: 0, headers: ['x'] });
+    expect(errors.map((e) => e.reason)).toContain('No column is mapped to "Volume", which is required.');
+  });
+});
