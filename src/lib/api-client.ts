@@ -29,6 +29,11 @@ export function setCsrfToken(token: string | null) {
   csrfToken = token;
 }
 
+/** For requests that cannot go through fetch (upload progress needs XMLHttpRequest). */
+export function getCsrfToken(): string | null {
+  return csrfToken;
+}
+
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 /** A successful response body: the data and, for lists, paging or availability facts. */

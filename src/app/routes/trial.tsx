@@ -5,7 +5,9 @@ import { Button } from '@/components/ui/button';
 import { paths } from '@/config/paths';
 import { ResultsTab } from '@/features/analysis/components/results-tab';
 import { useCohorts } from '@/features/cohorts/api/get-cohorts';
+import { ImportWizard } from '@/features/import/components/import-wizard';
 import { LogsPanel } from '@/features/logs/components/logs-panel';
+import { useCurrentUser } from '@/features/auth/api/get-session';
 import { usePlots } from '@/features/trials/api/get-plots';
 import { useTrial } from '@/features/trials/api/get-trial';
 import { useUpdateTrial } from '@/features/trials/api/trial-mutations';
@@ -17,7 +19,26 @@ import { TrialForm } from '@/features/trials/components/trial-form';
 import { cropLabels } from '@shared/schemas/trials';
 import { cn } from '@/lib/utils';
 
-type Tab = 'results' | 'records' | 'setup' | 'sharing' | 'history';
+type Tab = 'results' | 'records' | 'import' | 'setup' | 'sharing' | 'history';
+
+function ExportLinks({ trialId }: { trialId: string }) {
+  const files = ['water-events', 'moisture-readings', 'harvests', 'weather-days', 'plots', 'data-dictionary'];
+  return (
+    <section aria-labelledby="export-heading" className="mt-6 space-y-2">
+      <h2 id="export-heading">Download as CSV</h2>
+      <p className="text-sm text-ink-muted">One row per observation, ISO 8601 dates, SI units in the column names; the data dictionary describes every column.</p>
+      <ul className="flex flex-wrap gap-2">
+        {files.map((f) => (
+          <li key={f}>
+            <a className="inline-flex min-h-10 items-center rounded-lg border border-sand-300 bg-white px-3 text-sm font-medium hover:bg-sand-100" href={`/api/trials/${trialId}/export/${f}.csv`} download>
+              {f}.csv
+            </a>
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
 
 export function TrialPage() {
   const { trialId = '' } = useParams();
@@ -27,6 +48,7 @@ export function TrialPage() {
   const update = useUpdateTrial(trialId);
   const [tab, setTab] = useState<Tab>('results');
   const [editing, setEditing] = useState(false);
+  const user = useCurrentUser();
   if (trial.isPending) return <p role="status">Loading the trial…</p>;
   if (trial.isError) return <Alert tone="error">{trial.error.message}</Alert>;
   const t = trial.data;
@@ -34,6 +56,7 @@ export function TrialPage() {
   const tabs: { id: Tab; label: string }[] = [
     { id: 'results', label: 'Results' },
     { id: 'records', label: 'Records' },
+    ...(owner && t.status !== 'closed' ? ([{ id: 'import', label: 'Import' }] as const) : []),
     { id: 'setup', label: 'Setup' },
     ...(owner ? ([{ id: 'sharing', label: 'Sharing' }, { id: 'history', label: 'History' }] as const) : []),
   ];
@@ -84,6 +107,8 @@ export function TrialPage() {
       <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
         {tab === 'results' ? <ResultsTab trialId={t.id} treatments={t.treatments} /> : null}
         {tab === 'records' ? <LogsPanel trialId={t.id} plots={plots.data ?? []} editable={owner && t.status !== 'closed'} /> : null}
+        {tab === 'import' && user ? <ImportWizard trialId={t.id} userId={user.id} /> : null}
+        {tab === 'records' ? <ExportLinks trialId={t.id} /> : null}
         {tab === 'setup' ? (
           <div className="space-y-6">
             <PlotsPanel trial={t} />
