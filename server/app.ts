@@ -17,6 +17,7 @@ import { createObjectStorage } from './lib/object-storage';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { adminRoutes } from './routes/admin.routes';
 import { authRoutes, defaultAuthLimits, type AuthLimits } from './routes/auth.routes';
+import { cohortResultRoutes } from './routes/cohort-results.routes';
 import { cohortRoutes } from './routes/cohorts.routes';
 import { exportRoutes } from './routes/export.routes';
 import { gardenRoutes } from './routes/gardens.routes';
@@ -48,6 +49,7 @@ export function buildRouteSpecs(ctx: AppContext, authLimits: AuthLimits = defaul
   return [
     ...authRoutes(ctx, authLimits),
     ...cohortRoutes(ctx),
+    ...cohortResultRoutes(ctx),
     ...adminRoutes(ctx),
     ...gardenRoutes(ctx),
     ...trialRoutes(ctx),

@@ -11,6 +11,7 @@ import { PlotEntity } from '../entities/plot.entity';
 import { PotEntity } from '../entities/pot.entity';
 import { SeepTestEntity } from '../entities/seep-test.entity';
 import { SessionEntity } from '../entities/session.entity';
+import { TrialExclusionEntity } from '../entities/trial-exclusion.entity';
 import { TrialShareEntity } from '../entities/trial-share.entity';
 import { TrialEntity } from '../entities/trial.entity';
 import { UserTokenEntity } from '../entities/user-token.entity';
@@ -39,4 +40,5 @@ export const entities = [
   WeatherDayEntity,
   AuditEntryEntity,
   TrialShareEntity,
+  TrialExclusionEntity,
 ];
