@@ -1,4 +1,4 @@
-import { Link, useParams } from 'react-router-dom';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { paths } from '@/config/paths';
 import { RoundScreen } from '@/features/round/components/round-screen';
@@ -7,6 +7,7 @@ import { useTrial } from '@/features/trials/api/get-trial';
 export function RoundPage() {
   const { trialId = '' } = useParams();
   const trial = useTrial(trialId);
+  const [params] = useSearchParams();
   if (trial.isPending) return <p role="status">Loading…</p>;
   if (trial.isError) return <Alert tone="error">{trial.error.message}</Alert>;
   if (trial.data.status !== 'active') {
@@ -21,7 +22,7 @@ export function RoundPage() {
       <Link className="text-sm text-terracotta-700 underline" to={paths.trial(trialId)}>
         ← {trial.data.title}
       </Link>
-      <RoundScreen trialId={trialId} title={trial.data.title} />
+      <RoundScreen trialId={trialId} title={trial.data.title} focusPotId={params.get('pot')} />
     </div>
   );
 }

@@ -5,4 +5,5 @@ import { queryRoots } from '@/lib/query-roots';
 export const logKeys = {
   trial: queryRoots.logs,
   list: (trialId: string, kind: LogKind, q: Partial<ListLogsQuery>) => [...queryRoots.logs(trialId), kind, q] as const,
+  photos: (trialId: string, observationId: string) => [...queryRoots.logs(trialId), 'photos', observationId] as const,
 };

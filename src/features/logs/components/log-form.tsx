@@ -3,6 +3,7 @@ import { moistureRanges, type LogKind, type MoistureMethod, type WaterKind, type
 import type { Plot } from '@shared/schemas/plots';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { CautionNote } from '@/components/ui/caution-note';
 import { InputField, SelectField, TextareaField } from '@/components/ui/field';
 import { ApiRequestError } from '@/lib/api-client';
 import { useUnits } from '@/lib/units';
@@ -19,9 +20,6 @@ function toIso(local: string): string {
   return new Date(local).toISOString();
 }
 
-const greywaterNote =
-  'Greywater: use only water from showers, baths and hand basins, filtered, delivered below the surface, never on leaves or roots you eat raw. Rules differ by place: check your local code before using it.';
-
 /**
  * One form for every kind of log. The server validates with the shared schema and answers with
  * field messages, shown beside the field; nothing is written when anything is wrong.
@@ -34,6 +32,7 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
   const [waterKind, setWaterKind] = useState<WaterKind>('olla_refill');
   const [source, setSource] = useState<WaterSource>('mains');
   const [method, setMethod] = useState<MoistureMethod>('vwc');
+  const [fertiliser, setFertiliser] = useState(false);
 
   const submit = async (ev: FormEvent<HTMLFormElement>) => {
     ev.preventDefault();
@@ -128,14 +127,12 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
             <option value="other">Other</option>
           </SelectField>
           <label className="flex items-center gap-2 self-end pb-2 text-sm">
-            <input type="checkbox" name="fertiliser" className="size-4 accent-terracotta-600" /> Fertiliser or compost tea added
+            <input type="checkbox" name="fertiliser" className="size-4 accent-terracotta-600" checked={fertiliser} onChange={(e) => setFertiliser(e.target.checked)} /> Fertiliser or
+            compost tea added
           </label>
           <InputField label="Note" name="notes" className="sm:col-span-2" />
-          {source === 'greywater' ? (
-            <Alert tone="warning" className="sm:col-span-4">
-              {greywaterNote}
-            </Alert>
-          ) : null}
+          {source === 'greywater' ? <CautionNote id="greywater" className="sm:col-span-4" /> : null}
+          {fertiliser && waterKind === 'olla_refill' ? <CautionNote id="cloggingFertiliser" className="sm:col-span-4" /> : null}
         </>
       ) : null}
       {kind === 'moisture-readings' ? (

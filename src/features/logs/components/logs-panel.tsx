@@ -11,7 +11,9 @@ import { cn } from '@/lib/utils';
 import { useLogs, type LogRow } from '../api/get-logs';
 import { useDeleteLog } from '../api/log-mutations';
 import { logColumns, logTitles } from './log-columns';
+import { LogEditRow } from './log-edit-row';
 import { LogForm } from './log-form';
+import { ObservationPhotos } from './observation-photos';
 
 const PAGE_SIZE = 25;
 
@@ -40,6 +42,7 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
   const logs = useLogs(trialId, kind, query);
   const remove = useDeleteLog(trialId, kind);
   const [toDelete, setToDelete] = useState<LogRow | null>(null);
+  const [editing, setEditing] = useState<string | null>(null);
   const cols = logColumns[kind];
   const total = logs.data?.meta?.total ?? 0;
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
@@ -104,23 +107,31 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
             </tr>
           </thead>
           <tbody>
-            {(logs.data?.data ?? []).map((row) => (
-              <tr key={row.id} className="border-t border-sand-100">
-                {cols.map((c) => (
-                  <td key={c.field} className={cn('px-3 py-1.5', c.numeric && 'num')}>
-                    {c.quantity && typeof row[c.field] === 'number' ? units.show(row[c.field] as number, c.quantity).toFixed(c.digits ?? 1) : cellText(row, c.field)}
-                  </td>
-                ))}
-                <td className="px-3 py-1.5 text-ink-muted">{row.enteredBy ?? '—'}</td>
-                {editable ? (
-                  <td className="px-3 py-1.5 text-right">
-                    <Button variant="ghost" size="sm" onClick={() => setToDelete(row)} aria-label="Delete this record">
-                      Delete
-                    </Button>
-                  </td>
-                ) : null}
-              </tr>
-            ))}
+            {(logs.data?.data ?? []).map((row) =>
+              editing === row.id ? (
+                <LogEditRow key={row.id} trialId={trialId} kind={kind} row={row} colSpan={cols.length + (editable ? 2 : 1)} onDone={() => setEditing(null)} />
+              ) : (
+                <tr key={row.id} className="border-t border-sand-100 align-top">
+                  {cols.map((c) => (
+                    <td key={c.field} className={cn('px-3 py-1.5', c.numeric && 'num')}>
+                      {c.quantity && typeof row[c.field] === 'number' ? units.show(row[c.field] as number, c.quantity).toFixed(c.digits ?? 1) : cellText(row, c.field)}
+                      {kind === 'observations' && c.field === 'text' ? <ObservationPhotos trialId={trialId} observationId={row.id} editable={editable} /> : null}
+                    </td>
+                  ))}
+                  <td className="px-3 py-1.5 text-ink-muted">{row.enteredBy ?? '—'}</td>
+                  {editable ? (
+                    <td className="whitespace-nowrap px-3 py-1.5 text-right">
+                      <Button variant="ghost" size="sm" onClick={() => setEditing(row.id)} aria-label="Edit this record">
+                        Edit
+                      </Button>
+                      <Button variant="ghost" size="sm" onClick={() => setToDelete(row)} aria-label="Delete this record">
+                        Delete
+                      </Button>
+                    </td>
+                  ) : null}
+                </tr>
+              ),
+            )}
           </tbody>
         </table>
         {logs.isSuccess && total === 0 ? <p className="px-3 py-4 text-ink-muted">No records match.</p> : null}

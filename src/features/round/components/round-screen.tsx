@@ -1,5 +1,5 @@
-import { useMemo, useState } from 'react';
-import type { RoundInput } from '@shared/schemas/logs';
+import { useEffect, useMemo, useState } from 'react';
+import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { useUnits } from '@/lib/units';
@@ -7,7 +7,12 @@ import { cn } from '@/lib/utils';
 import { useRound, type RoundPot } from '../api/get-round';
 import { useSaveRound } from '../api/save-round';
 
-type Entry = { kind: 'refill'; potId: string; plotId: string; volume: number } | { kind: 'surface'; plotId: string; volume: number };
+type Entry =
+  | { kind: 'refill'; potId: string; plotId: string; volume: number }
+  | { kind: 'surface'; plotId: string; volume: number }
+  | { kind: 'moisture'; plotId: string; method: MoistureMethod; depthCm: number; value: number }
+  | { kind: 'harvest'; plotId: string; freshKg: number; count: number | null };
+type WaterEntry = Extract<Entry, { kind: 'refill' | 'surface' }>;
 
 function newKey(): string {
   return typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 12)}`;
@@ -31,7 +36,7 @@ function estimatedLevel(p: RoundPot): number | null {
  * The Round: the phone screen for the daily walk. Every pot and surface plot of the trial in one
  * list; one tap marks a refill at the last volume (or a full pot), a second tap saves the walk.
  */
-export function RoundScreen({ trialId, title }: { trialId: string; title: string }) {
+export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; title: string; focusPotId?: string | null }) {
   const units = useUnits();
   const round = useRound(trialId);
   const save = useSaveRound(trialId);
@@ -45,6 +50,13 @@ export function RoundScreen({ trialId, title }: { trialId: string; title: string
     return [...list].sort((a, b) => (estimatedLevel(a) ?? a.capacityL) / a.capacityL - (estimatedLevel(b) ?? b.capacityL) / b.capacityL);
   }, [round.data]);
   const surfacePlots = (round.data?.plots ?? []).filter((p) => p.treatment !== 'olla');
+
+  // Opened from a reminder's "logged it" link: that pot is already marked; one tap on Save records it.
+  useEffect(() => {
+    const pot = focusPotId ? round.data?.pots.find((p) => p.id === focusPotId) : undefined;
+    if (!pot) return;
+    setEntries((e) => (e[`pot:${pot.id}`] ? e : { ...e, [`pot:${pot.id}`]: { kind: 'refill', potId: pot.id, plotId: pot.plotId, volume: pot.lastRefillL ?? pot.capacityL } }));
+  }, [focusPotId, round.data]);
   const plotLabel = (id: string) => round.data?.plots.find((p) => p.id === id)?.label ?? '';
 
   if (round.isPending) return <p role="status">Loading your pots…</p>;
@@ -60,7 +72,7 @@ export function RoundScreen({ trialId, title }: { trialId: string; title: string
   const adjust = (key: string, delta: number) =>
     setEntries((e) => {
       const cur = e[key];
-      if (!cur) return e;
+      if (!cur || (cur.kind !== 'refill' && cur.kind !== 'surface')) return e;
       const display = Math.max(step, Math.round((units.show(cur.volume, 'volume') + delta) / step) * step);
       return { ...e, [key]: { ...cur, volume: units.toSI(display, 'volume') } };
     });
@@ -68,12 +80,20 @@ export function RoundScreen({ trialId, title }: { trialId: string; title: string
   const count = Object.keys(entries).length;
   const submit = () => {
     const now = new Date().toISOString();
+    const today = now.slice(0, 10);
     const input: RoundInput = {
-      entries: Object.values(entries).map((en) =>
-        en.kind === 'refill'
-          ? { type: 'water', entry: { plotId: en.plotId, potId: en.potId, occurredAt: now, kind: 'olla_refill', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } }
-          : { type: 'water', entry: { plotId: en.plotId, potId: null, occurredAt: now, kind: 'surface', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } },
-      ),
+      entries: Object.values(entries).map((en): RoundInput['entries'][number] => {
+        switch (en.kind) {
+          case 'refill':
+            return { type: 'water', entry: { plotId: en.plotId, potId: en.potId, occurredAt: now, kind: 'olla_refill', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } };
+          case 'surface':
+            return { type: 'water', entry: { plotId: en.plotId, potId: null, occurredAt: now, kind: 'surface', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } };
+          case 'moisture':
+            return { type: 'moisture', entry: { plotId: en.plotId, takenAt: now, method: en.method, depthCm: en.depthCm, value: en.value, idempotencyKey: newKey() } };
+          case 'harvest':
+            return { type: 'harvest', entry: { plotId: en.plotId, harvestedOn: today, freshKg: en.freshKg, count: en.count, marketableKg: null, notes: '', idempotencyKey: newKey() } };
+        }
+      }),
     };
     setDone(null);
     save.mutate(input, {
@@ -84,9 +104,10 @@ export function RoundScreen({ trialId, title }: { trialId: string; title: string
     });
   };
 
-  const row = (key: string, entry: Entry, heading: string, sub: string, level: number | null, capacity: number | null) => {
+  const row = (key: string, entry: WaterEntry, heading: string, sub: string, level: number | null, capacity: number | null) => {
     const on = Boolean(entries[key]);
-    const vol = entries[key]?.volume ?? entry.volume;
+    const current = entries[key];
+    const vol = current && (current.kind === 'refill' || current.kind === 'surface') ? current.volume : entry.volume;
     return (
       <li key={key} className={cn('rounded-card border bg-white p-3', on ? 'border-terracotta-400 ring-2 ring-terracotta-200' : 'border-sand-200')}>
         <div className="flex items-center gap-3">
@@ -171,6 +192,20 @@ export function RoundScreen({ trialId, title }: { trialId: string; title: string
           )}
         </ul>
       </section>
+      <ExtraEntries
+        plots={round.data?.plots ?? []}
+        massLabel={units.label('mass')}
+        onAdd={(key, entry) => setEntries((e) => ({ ...e, [key]: entry }))}
+        toKg={(v) => units.toSI(v, 'mass')}
+        pending={Object.entries(entries).filter(([, e]) => e.kind === 'moisture' || e.kind === 'harvest')}
+        onRemove={(key) =>
+          setEntries((e) => {
+            const next = { ...e };
+            delete next[key];
+            return next;
+          })
+        }
+      />
       <div className="fixed inset-x-0 bottom-0 border-t border-sand-200 bg-white/95 p-3 backdrop-blur">
         <div className="mx-auto max-w-xl">
           <Button size="lg" className="w-full" disabled={count === 0 || save.isPending} onClick={submit}>
@@ -179,5 +214,112 @@ export function RoundScreen({ trialId, title }: { trialId: string; title: string
         </div>
       </div>
     </div>
+  );
+}
+
+/** A moisture reading or a pick, added to the same walk and saved with it. */
+function ExtraEntries({
+  plots,
+  massLabel,
+  toKg,
+  onAdd,
+  pending,
+  onRemove,
+}: {
+  plots: { id: string; label: string }[];
+  massLabel: string;
+  toKg: (v: number) => number;
+  onAdd: (key: string, entry: Entry) => void;
+  pending: [string, Entry][];
+  onRemove: (key: string) => void;
+}) {
+  const [plotId, setPlotId] = useState(plots[0]?.id ?? '');
+  const [method, setMethod] = useState<MoistureMethod>('vwc');
+  const [reading, setReading] = useState('');
+  const [mass, setMass] = useState('');
+  const [count, setCount] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const label = (id: string) => plots.find((p) => p.id === id)?.label ?? '';
+  const range = moistureRanges[method];
+  const addReading = () => {
+    const v = Number(reading.replace(',', '.'));
+    if (reading === '' || !Number.isFinite(v) || v < range.min || v > range.max) return setError(`${range.label} readings are between ${range.min} and ${range.max} ${range.unit}.`);
+    setError(null);
+    onAdd(`moisture:${plotId}:${Date.now()}`, { kind: 'moisture', plotId, method, depthCm: 15, value: v });
+    setReading('');
+  };
+  const addHarvest = () => {
+    const v = Number(mass.replace(',', '.'));
+    if (mass === '' || !Number.isFinite(v) || v <= 0) return setError('Enter the mass picked.');
+    const c = count === '' ? null : Number(count);
+    if (c !== null && (!Number.isInteger(c) || c < 0)) return setError('The count is a whole number.');
+    setError(null);
+    onAdd(`harvest:${plotId}:${Date.now()}`, { kind: 'harvest', plotId, freshKg: toKg(v), count: c });
+    setMass('');
+    setCount('');
+  };
+  if (!plots.length) return null;
+  const input = 'block h-12 w-full rounded-lg border border-sand-300 bg-white px-3 text-base';
+  return (
+    <section aria-labelledby="extra-heading" className="space-y-3 rounded-card border border-sand-200 bg-white p-3">
+      <h2 id="extra-heading" className="text-lg">
+        A reading or a pick
+      </h2>
+      {error ? <Alert tone="error">{error}</Alert> : null}
+      <label className="block text-sm font-medium">
+        Plot
+        <select className={input} value={plotId} onChange={(e) => setPlotId(e.target.value)}>
+          {plots.map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.label}
+            </option>
+          ))}
+        </select>
+      </label>
+      <div className="grid grid-cols-2 gap-2">
+        <label className="block text-sm font-medium">
+          Moisture method
+          <select className={input} value={method} onChange={(e) => setMethod(e.target.value as MoistureMethod)}>
+            <option value="vwc">VWC (%)</option>
+            <option value="tensiometer">Tensiometer (kPa)</option>
+            <option value="probe_index">Probe (1–10)</option>
+          </select>
+        </label>
+        <label className="block text-sm font-medium">
+          Reading ({range.unit})
+          <input className={input} inputMode="decimal" value={reading} onChange={(e) => setReading(e.target.value)} />
+        </label>
+      </div>
+      <Button variant="secondary" className="w-full" size="lg" onClick={addReading}>
+        Add reading
+      </Button>
+      <div className="grid grid-cols-2 gap-2">
+        <label className="block text-sm font-medium">
+          Picked ({massLabel})
+          <input className={input} inputMode="decimal" value={mass} onChange={(e) => setMass(e.target.value)} />
+        </label>
+        <label className="block text-sm font-medium">
+          Fruits (optional)
+          <input className={input} inputMode="numeric" value={count} onChange={(e) => setCount(e.target.value)} />
+        </label>
+      </div>
+      <Button variant="secondary" className="w-full" size="lg" onClick={addHarvest}>
+        Add pick
+      </Button>
+      {pending.length ? (
+        <ul className="space-y-1 text-sm">
+          {pending.map(([key, e]) => (
+            <li key={key} className="flex items-center gap-2">
+              <span>
+                {e.kind === 'moisture' ? `Reading ${e.value} on ${label(e.plotId)}` : e.kind === 'harvest' ? `Pick on ${label(e.plotId)}` : ''}
+              </span>
+              <Button variant="ghost" size="sm" className="ml-auto" onClick={() => onRemove(key)}>
+                Remove
+              </Button>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </section>
   );
 }

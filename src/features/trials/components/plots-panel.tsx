@@ -6,6 +6,7 @@ import { createPlotInputSchema, plotSettingSchema, type Plot } from '@shared/sch
 import type { Trial } from '@shared/schemas/trials';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { CautionNote } from '@/components/ui/caution-note';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { InputField, SelectField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/form-errors';
@@ -42,7 +43,7 @@ export function PlotsPanel({ trial }: { trial: Trial }) {
   const [toDelete, setToDelete] = useState<Plot | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const editable = trial.access === 'owner' && trial.status !== 'closed';
-  const { register, handleSubmit, setError, reset, formState } = useForm<FormValues>({
+  const { register, handleSubmit, setError, reset, watch, formState } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
     defaultValues: { setting: 'in_ground', mulch: false, lid: true, plantCount: 1 },
   });
@@ -136,6 +137,7 @@ export function PlotsPanel({ trial }: { trial: Trial }) {
           <label className="flex items-center gap-2 self-end pb-2 text-sm">
             <input type="checkbox" className="size-4 accent-terracotta-600" {...register('lid')} /> Pots have lids
           </label>
+          {watch('lid') === false ? <CautionNote id="openPotMosquitoes" className="sm:col-span-4" /> : null}
           <div className="self-end">
             <Button type="submit" disabled={formState.isSubmitting}>
               Add plot

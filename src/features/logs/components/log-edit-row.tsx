@@ -1,0 +1,95 @@
+import { useState } from 'react';
+import type { LogKind } from '@shared/schemas/logs';
+import type { Quantity } from '@shared/units';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ApiRequestError } from '@/lib/api-client';
+import { useUnits } from '@/lib/units';
+import type { LogRow } from '../api/get-logs';
+import { useUpdateLog } from '../api/log-mutations';
+
+/** The fields an owner corrects most: amounts and notes. Dates and plots are fixed by deleting and re-entering. */
+const editable: Record<LogKind, { field: string; label: string; quantity?: Quantity; text?: boolean }[]> = {
+  'water-events': [
+    { field: 'volumeL', label: 'Volume', quantity: 'volume' },
+    { field: 'notes', label: 'Note', text: true },
+  ],
+  'moisture-readings': [{ field: 'value', label: 'Reading' }],
+  harvests: [
+    { field: 'freshKg', label: 'Fresh mass', quantity: 'mass' },
+    { field: 'marketableKg', label: 'Marketable', quantity: 'mass' },
+    { field: 'count', label: 'Count' },
+  ],
+  observations: [{ field: 'text', label: 'Note', text: true }],
+};
+
+export function LogEditRow({ trialId, kind, row, colSpan, onDone }: { trialId: string; kind: LogKind; row: LogRow; colSpan: number; onDone: () => void }) {
+  const units = useUnits();
+  const update = useUpdateLog(trialId, kind);
+  const fields = editable[kind];
+  const [values, setValues] = useState<Record<string, string>>(() =>
+    Object.fromEntries(
+      fields.map((f) => {
+        const v = row[f.field];
+        if (v === null || v === undefined) return [f.field, ''];
+        return [f.field, typeof v === 'number' && f.quantity ? String(Number(units.show(v, f.quantity).toFixed(3))) : String(v)];
+      }),
+    ),
+  );
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const save = async () => {
+    const patch: Record<string, unknown> = {};
+    for (const f of fields) {
+      const raw = values[f.field] ?? '';
+      if (f.text) patch[f.field] = raw;
+      else if (raw === '') patch[f.field] = null;
+      else {
+        const n = Number(raw.replace(',', '.'));
+        patch[f.field] = f.quantity ? units.toSI(n, f.quantity) : n;
+      }
+    }
+    try {
+      await update.mutateAsync({ id: row.id, patch });
+      onDone();
+    } catch (err) {
+      if (err instanceof ApiRequestError) {
+        setErrors(err.fieldErrors);
+        setMessage(err.message);
+      } else setMessage('Something went wrong.');
+    }
+  };
+  return (
+    <tr className="border-t border-sand-100 bg-sand-50">
+      <td colSpan={colSpan} className="px-3 py-2">
+        <div className="flex flex-wrap items-end gap-3">
+          {fields.map((f) => (
+            <label key={f.field} className="block text-sm font-medium">
+              {f.label}
+              {f.quantity ? ` (${units.label(f.quantity)})` : ''}
+              <input
+                className="mt-1 block rounded-lg border border-sand-300 bg-white px-2 py-1.5"
+                inputMode={f.text ? 'text' : 'decimal'}
+                value={values[f.field] ?? ''}
+                aria-invalid={errors[f.field] ? true : undefined}
+                onChange={(e) => setValues((v) => ({ ...v, [f.field]: e.target.value }))}
+              />
+              {errors[f.field] ? <span className="block text-xs text-red-800">{errors[f.field]}</span> : null}
+            </label>
+          ))}
+          <Button size="sm" onClick={() => void save()} disabled={update.isPending}>
+            Save
+          </Button>
+          <Button size="sm" variant="ghost" onClick={onDone}>
+            Cancel
+          </Button>
+        </div>
+        {message ? (
+          <Alert tone="error" className="mt-2">
+            {message}
+          </Alert>
+        ) : null}
+      </td>
+    </tr>
+  );
+}
