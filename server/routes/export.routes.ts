@@ -3,6 +3,7 @@ import { access } from '../http/access';
 import { handle, route, type RouteSpec } from '../http/route';
 import { AppError } from '../lib/app-error';
 import { findExportTable } from '../services/export-tables';
+import { bundleService } from '../services/bundle.service';
 import { exportService } from '../services/export.service';
 
 function checkTable(table: string) {
@@ -11,7 +12,14 @@ function checkTable(table: string) {
 
 export function exportRoutes(ctx: AppContext): RouteSpec[] {
   const svc = exportService(ctx);
+  const bundles = bundleService(ctx);
   return [
+    route(
+      'get',
+      '/trials/:trialId/report.zip',
+      access.reader('trial', 'trialId'),
+      handle(async (req, res) => bundles.streamTrialBundle(res, String(req.params.trialId))),
+    ),
     route(
       'get',
       '/trials/:trialId/export/:table.csv',

@@ -1,0 +1,110 @@
+import archiver from 'archiver';
+import type { Response } from 'express';
+import type { PoolClient } from 'pg';
+import { to as copyTo } from 'pg-copy-streams';
+import { trialCharts } from '@shared/charts/trial-charts';
+import { trialReportMarkdown } from '@shared/report/trial-report';
+import { cropLabels, type Crop } from '@shared/schemas/trials';
+import type { AppContext } from '../context';
+import { renderChart } from '../lib/render-chart';
+import { analysisService } from './analysis.service';
+import { dictionaryRows, exportSelect, exportTables, type ExportScope } from './export-tables';
+import Papa from 'papaparse';
+
+const BOM = '\uFEFF';
+
+/**
+ * Report bundles: one ZIP with the CSVs (streamed from COPY), the data dictionary, every chart as
+ * SVG and PNG, and a methods-and-results text in Markdown. The archive streams to the response.
+ */
+export function bundleService(ctx: AppContext) {
+  const analysis = analysisService(ctx);
+
+  async function withClient<T>(fn: (client: PoolClient) => Promise<T>): Promise<T> {
+    const runner = ctx.ds.createQueryRunner();
+    const client = (await runner.connect()) as PoolClient;
+    try {
+      return await fn(client);
+    } finally {
+      await runner.release();
+    }
+  }
+
+  /** Adds every table of the scope to the archive, each streamed from its own COPY in turn. */
+  async function addTables(zip: archiver.Archiver, client: PoolClient, scope: ExportScope, dir: string) {
+    for (const table of exportTables) {
+      const sql = exportSelect(table, scope, (v) => client.escapeLiteral(v));
+      const stream = client.query(copyTo(`COPY (${sql}) TO STDOUT WITH (FORMAT csv, HEADER true)`));
+      const done = new Promise<void>((resolve, reject) => {
+        stream.on('end', resolve);
+        stream.on('error', reject);
+      });
+      zip.append(stream, { name: `${dir}/${table.name}.csv` });
+      // COPY streams on one connection must run one after another.
+      await done;
+    }
+    zip.append(BOM + Papa.unparse(dictionaryRows(scope), { newline: '\r\n' }), { name: `${dir}/data-dictionary.csv` });
+  }
+
+  return {
+    async streamTrialBundle(res: Response, trialId: string) {
+      const [trial] = (await ctx.ds.query(`SELECT title, crop, crop_name, variety, planting_date, end_date, design, treatments, question, randomisation_seed FROM trials WHERE id = $1`, [
+        trialId,
+      ])) as {
+        title: string;
+        crop: Crop;
+        crop_name: string;
+        variety: string;
+        planting_date: string;
+        end_date: string | null;
+        design: string;
+        treatments: string[];
+        question: string;
+        randomisation_seed: string | null;
+      }[];
+      const a = await analysis.forTrial(trialId);
+      const charts = trialCharts(a, trial!.treatments, { units: 'metric', width: 640 });
+      const rendered = await Promise.all(charts.map(async (c) => ({ ...c, ...(await renderChart(c.spec)) })));
+      const files = [
+        ...exportTables.map((t) => `data/${t.name}.csv`),
+        'data/data-dictionary.csv',
+        ...rendered.flatMap((c) => [`charts/${c.id}.svg`, `charts/${c.id}.png`]),
+      ];
+      const markdown = trialReportMarkdown({
+        title: trial!.title,
+        crop: trial!.crop === 'other' ? trial!.crop_name : cropLabels[trial!.crop],
+        variety: trial!.variety,
+        plantingDate: trial!.planting_date,
+        endDate: trial!.end_date,
+        design: trial!.design,
+        treatments: trial!.treatments,
+        question: trial!.question,
+        randomisationSeed: trial!.randomisation_seed,
+        analysis: a,
+        generatedOn: ctx.now().toISOString().slice(0, 10),
+        files,
+      });
+
+      res.status(200);
+      res.setHeader('Content-Type', 'application/zip');
+      res.setHeader('Content-Disposition', `attachment; filename="seepwise-trial-${trialId.slice(0, 8)}-report.zip"`);
+      res.setHeader('Cache-Control', 'no-store');
+      const zip = archiver('zip', { zlib: { level: 6 } });
+      const finished = new Promise<void>((resolve, reject) => {
+        res.on('close', resolve);
+        zip.on('error', reject);
+      });
+      zip.pipe(res);
+      zip.append(markdown, { name: 'methods-and-results.md' });
+      for (const c of rendered) {
+        zip.append(c.svg, { name: `charts/${c.id}.svg` });
+        zip.append(c.png, { name: `charts/${c.id}.png` });
+      }
+      await withClient((client) => addTables(zip, client, { kind: 'trial', trialId }, 'data'));
+      await zip.finalize();
+      await finished;
+    },
+    addTables,
+    withClient,
+  };
+}

@@ -1,0 +1,64 @@
+import unzipper from 'unzipper';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { makePairedTrial } from '../helpers/notebook-fixtures';
+import { ApiAgent, startTestApp, uniqueEmail, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await startTestApp();
+  t.clock.now = new Date('2026-09-30T12:00:00Z');
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+describe('GET /api/trials/:trialId/report.zip', () => {
+  it('bundles the CSVs, the data dictionary, every chart as SVG and PNG, and a methods-and-results text', async () => {
+    const a = new ApiAgent(t.app);
+    await a.signUp({ email: uniqueEmail() });
+    const { trial, plots } = await makePairedTrial(a);
+    for (const p of plots) {
+      for (let d = 1; d <= 3; d++) {
+        await a.post(`/api/trials/${trial.id}/water-events`, { plotId: p.id, occurredAt: `2026-06-0${d}T07:00:00Z`, kind: p.treatment === 'olla' ? 'olla_refill' : 'surface', volumeL: p.treatment === 'olla' ? 3 + d / 2 + p.label.length : 9 + d });
+      }
+      await a.post(`/api/trials/${trial.id}/harvests`, { plotId: p.id, harvestedOn: '2026-08-01', freshKg: 2 + p.label.charCodeAt(0) / 100 });
+    }
+    const res = await a.agent.get(`/api/trials/${trial.id}/report.zip`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/zip');
+    const dir = await unzipper.Open.buffer(res.body as Buffer);
+    const names = dir.files.map((f) => f.path).sort();
+    expect(names).toEqual(
+      expect.arrayContaining([
+        'methods-and-results.md',
+        'data/water-events.csv',
+        'data/harvests.csv',
+        'data/plots.csv',
+        'data/data-dictionary.csv',
+        'charts/cumulative-water.svg',
+        'charts/cumulative-water.png',
+        'charts/paired-differences.svg',
+        'charts/paired-differences.png',
+        'charts/harvest-vs-water.png',
+      ]),
+    );
+    const read = async (name: string) => (await dir.files.find((f) => f.path === name)!.buffer()).toString('utf8');
+    const md = await read('methods-and-results.md');
+    expect(md).toMatch(/## Methods/);
+    expect(md).toMatch(/Across 2 pairs/);
+    expect(md).toMatch(/95% confidence interval/);
+    expect(md).toMatch(/seed `fixture-seed`/);
+    const water = (await read('data/water-events.csv')).replace(/^\uFEFF/, '').trim().split('\n');
+    expect(water).toHaveLength(1 + 12);
+    expect(await read('charts/cumulative-water.svg')).toMatch(/^<svg/);
+    const png = await dir.files.find((f) => f.path === 'charts/cumulative-water.png')!.buffer();
+    // PNG signature (ISO/IEC 15948 §5.2).
+    expect(png.subarray(0, 8).toString('hex')).toBe('89504e470d0a1a0a');
+  });
+});
