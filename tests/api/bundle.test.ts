@@ -25,7 +25,7 @@ describe('GET /api/trials/:trialId/report.zip', () => {
     const { trial, plots } = await makePairedTrial(a);
     for (const p of plots) {
       for (let d = 1; d <= 3; d++) {
-        await a.post(`/api/trials/${trial.id}/water-events`, { plotId: p.id, occurredAt: `2026-06-0${d}T07:00:00Z`, kind: p.treatment === 'olla' ? 'olla_refill' : 'surface', volumeL: p.treatment === 'olla' ? 3 + d / 2 + p.label.length : 9 + d });
+        await a.post(`/api/trials/${trial.id}/water-events`, { plotId: p.id, occurredAt: `2026-06-0${d}T07:00:00Z`, kind: p.treatment === 'olla' ? 'olla_refill' : 'surface', volumeL: p.treatment === 'olla' ? 3 + d / 2 + (p.label.charCodeAt(0) - 64) * 0.7 : 9 + d });
       }
       await a.post(`/api/trials/${trial.id}/harvests`, { plotId: p.id, harvestedOn: '2026-08-01', freshKg: 2 + p.label.charCodeAt(0) / 100 });
     }
