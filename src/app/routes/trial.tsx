@@ -28,6 +28,11 @@ function ExportLinks({ trialId }: { trialId: string }) {
       <h2 id="export-heading">Download as CSV</h2>
       <p className="text-sm text-ink-muted">One row per observation, ISO 8601 dates, SI units in the column names; the data dictionary describes every column.</p>
       <ul className="flex flex-wrap gap-2">
+        <li>
+          <a className="inline-flex min-h-10 items-center rounded-lg bg-terracotta-600 px-3 text-sm font-medium text-white hover:bg-terracotta-700" href={`/api/trials/${trialId}/report.zip`} download>
+            Report bundle (ZIP: data, charts, methods)
+          </a>
+        </li>
         {files.map((f) => (
           <li key={f}>
             <a className="inline-flex min-h-10 items-center rounded-lg border border-sand-300 bg-white px-3 text-sm font-medium hover:bg-sand-100" href={`/api/trials/${trialId}/export/${f}.csv`} download>
