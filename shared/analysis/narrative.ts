@@ -16,10 +16,11 @@ function num(v: number, digits: number, lang: Lang): string {
   return new Intl.NumberFormat(lang === 'es' ? 'es' : 'en', { maximumFractionDigits: digits, minimumFractionDigits: digits }).format(v);
 }
 
+/** "p = 0.034" or "p < 0.001". */
 function pText(p: number, lang: Lang): string {
-  if (!Number.isFinite(p)) return lang === 'es' ? 'no calculable' : 'not computable';
-  if (p < 0.001) return '< 0.001';
-  return num(p, 3, 'en');
+  if (!Number.isFinite(p)) return lang === 'es' ? 'p no calculable' : 'p not computable';
+  if (p < 0.001) return 'p < 0.001';
+  return `p = ${num(p, 3, 'en')}`;
 }
 
 /** Water depth for display: mm or inches. */
@@ -65,13 +66,13 @@ function waterSentence(m: PairedMetric, c: Comparison, f: Fmt): string | null {
   if (f.lang === 'es') {
     return (
       `En ${r.n} pares, ${t} recibieron de media ${amount} ${less ? 'menos' : 'más'} agua que sus gemelas de control ` +
-      `(intervalo de confianza del ${conf} % para la diferencia: ${ci}; prueba t pareada p = ${pText(r.pValue, 'es')}; Wilcoxon de rangos con signo p = ${pText(r.wilcoxon.pValue, 'es')}).` +
+      `(intervalo de confianza del ${conf} % para la diferencia: ${ci}; prueba t pareada ${pText(r.pValue, 'es')}; Wilcoxon de rangos con signo ${pText(r.wilcoxon.pValue, 'es')}).` +
       (includesZero ? ' El intervalo incluye el cero: estos datos no distinguen la diferencia de ninguna.' : '')
     );
   }
   return (
     `Across ${r.n} pairs, ${t} received on average ${amount} ${less ? 'less' : 'more'} water than their control twins ` +
-    `(${conf}% confidence interval for the difference: ${ci}; paired t-test p = ${pText(r.pValue, 'en')}; Wilcoxon signed-rank p = ${pText(r.wilcoxon.pValue, 'en')}).` +
+    `(${conf}% confidence interval for the difference: ${ci}; paired t-test ${pText(r.pValue, 'en')}; Wilcoxon signed-rank ${pText(r.wilcoxon.pValue, 'en')}).` +
     (includesZero ? ' The interval includes zero: these data cannot tell the difference apart from none.' : '')
   );
 }
@@ -92,9 +93,9 @@ function harvestSentence(m: PairedMetric, f: Fmt): string | null {
   const sign = r.meanDifference >= 0 ? '+' : '−';
   const diff = `${sign}${yieldPerArea(Math.abs(r.meanDifference), f)}`;
   if (f.lang === 'es') {
-    return `Cosecha por superficie: diferencia media ${diff} (IC ${conf} %: ${yieldPerArea(lo, f)} … ${yieldPerArea(hi, f)}; p = ${pText(r.pValue, 'es')}).${includesZero ? ' No se distingue una diferencia en la cosecha.' : ''}`;
+    return `Cosecha por superficie: diferencia media ${diff} (IC ${conf} %: ${yieldPerArea(lo, f)} … ${yieldPerArea(hi, f)}; ${pText(r.pValue, 'es')}).${includesZero ? ' No se distingue una diferencia en la cosecha.' : ''}`;
   }
-  return `Harvest per area: mean difference ${diff} (${conf}% CI ${yieldPerArea(lo, f)} … ${yieldPerArea(hi, f)}; p = ${pText(r.pValue, 'en')}).${includesZero ? ' No difference in harvest can be told apart.' : ''}`;
+  return `Harvest per area: mean difference ${diff} (${conf}% CI ${yieldPerArea(lo, f)} … ${yieldPerArea(hi, f)}; ${pText(r.pValue, 'en')}).${includesZero ? ' No difference in harvest can be told apart.' : ''}`;
 }
 
 /** Sentences describing one comparison: water, saving, harvest, then the caveats. */
@@ -123,6 +124,15 @@ export function describeComparison(c: Comparison, f: Fmt): string[] {
     );
     if (n < 5) {
       out.push(f.lang === 'es' ? `Con solo ${n} pares el intervalo es ancho; más pares lo estrechan.` : `With only ${n} pairs the interval is wide; more pairs would narrow it.`);
+    }
+    if (n <= 6) {
+      // The exact two-sided signed-rank p-value cannot go below 2 / 2^n (all differences one way).
+      const floor = num(2 / 2 ** n, 3, 'en');
+      out.push(
+        f.lang === 'es'
+          ? `Con ${n} pares, la prueba de Wilcoxon no puede dar un p menor que ${floor} aunque todos los pares vayan en el mismo sentido.`
+          : `With ${n} pairs the Wilcoxon test cannot give a p-value below ${floor}, even when every pair points the same way.`,
+      );
     }
   }
   return out;

@@ -72,12 +72,23 @@ describe('describeComparison', () => {
     expect(en).toMatch(/Across 10 pairs/);
     expect(en).toMatch(/95% confidence interval/);
     expect(en).toMatch(/paired t-test p = 0\.009/);
+    expect(en).not.toMatch(/p = </);
     expect(en).toMatch(/Wilcoxon signed-rank p = /);
     expect(en).toMatch(/one site/);
     const us = describeComparison(r.comparisons[0]!, { lang: 'en', units: 'us' }).join(' ');
     expect(us).toMatch(/ in /);
     const es = describeComparison(r.comparisons[0]!, { lang: 'es', units: 'metric' }).join(' ');
     expect(es).toMatch(/En 10 pares/);
+  });
+
+  it('says how low the exact Wilcoxon p-value can go with few pairs (2/2^n: 0.125 for 4 pairs)', () => {
+    // Exact signed-rank null distribution: all 2^n sign patterns equally likely; the most extreme
+    // two-sided outcome has probability 2/2^n (Hollander & Wolfe 1973, ch. 3).
+    const r = analyseTrial(input([[10, 20], [11, 23], [9, 19], [12, 25]]));
+    const text = describeComparison(r.comparisons[0]!, { lang: 'en', units: 'metric' }).join(' ');
+    expect(text).toMatch(/cannot give a p-value below 0\.125/);
+    const m = r.comparisons[0]!.metrics.waterMm;
+    expect(m.kind === 'test' && m.result.wilcoxon.pValue).toBe(0.125);
   });
 
   it('with one pair says plainly that no test is possible', () => {
