@@ -13,6 +13,7 @@ import { trialAnalysisQueryOptions } from '@/features/analysis/api/get-trial-ana
 import { gardenQueryOptions } from '@/features/gardens/api/get-garden';
 import { gardensQueryOptions } from '@/features/gardens/api/get-gardens';
 import { roundQueryOptions } from '@/features/round/api/get-round';
+import { potsQueryOptions } from '@/features/pots/api/get-pots';
 import { plotsQueryOptions } from '@/features/trials/api/get-plots';
 import { trialQueryOptions } from '@/features/trials/api/get-trial';
 import { trialsQueryOptions } from '@/features/trials/api/get-trials';
@@ -23,6 +24,8 @@ import { CohortPage } from './routes/cohort';
 import { GardenPage } from './routes/garden';
 import { GuidesRoute } from './routes/guides';
 import { NewGardenPage } from './routes/new-garden';
+import { PlannerPage } from './routes/planner';
+import { PotsPage } from './routes/pots';
 import { RoundPage } from './routes/round';
 import { TrialPage } from './routes/trial';
 import { CohortsPage } from './routes/cohorts';
@@ -97,6 +100,8 @@ export function createAppRouter(queryClient: QueryClient) {
               element: <RoundPage />,
               loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(roundQueryOptions(params.trialId!))]),
             },
+            { path: paths.pots, element: <PotsPage />, loader: prefetch(() => [ensure(potsQueryOptions()), ensure(trialsQueryOptions())]) },
+            { path: paths.planner, element: <PlannerPage />, loader: prefetch(() => [ensure(trialsQueryOptions()), ensure(potsQueryOptions())]) },
             { path: paths.guides, element: <GuidesRoute /> },
             { path: paths.account, element: <AccountPage /> },
             { path: paths.cohorts, element: <CohortsPage />, loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
