@@ -125,7 +125,7 @@ export function describeComparison(c: Comparison, f: Fmt): string[] {
     if (n < 5) {
       out.push(f.lang === 'es' ? `Con solo ${n} pares el intervalo es ancho; más pares lo estrechan.` : `With only ${n} pairs the interval is wide; more pairs would narrow it.`);
     }
-    if (n <= 6) {
+    if (n <= 6 && c.metrics.waterMm.result.wilcoxon.exact) {
       // The exact two-sided signed-rank p-value cannot go below 2 / 2^n (all differences one way).
       const floor = num(2 / 2 ** n, 3, 'en');
       out.push(

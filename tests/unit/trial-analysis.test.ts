@@ -84,7 +84,7 @@ describe('describeComparison', () => {
   it('says how low the exact Wilcoxon p-value can go with few pairs (2/2^n: 0.125 for 4 pairs)', () => {
     // Exact signed-rank null distribution: all 2^n sign patterns equally likely; the most extreme
     // two-sided outcome has probability 2/2^n (Hollander & Wolfe 1973, ch. 3).
-    const r = analyseTrial(input([[10, 20], [11, 23], [9, 19], [12, 25]]));
+    const r = analyseTrial(input([[10, 20], [11, 23], [9, 20], [12, 25]]));
     const text = describeComparison(r.comparisons[0]!, { lang: 'en', units: 'metric' }).join(' ');
     expect(text).toMatch(/cannot give a p-value below 0\.125/);
     const m = r.comparisons[0]!.metrics.waterMm;
