@@ -20,3 +20,16 @@ export type PageMeta = z.infer<typeof pageMetaSchema>;
 export const idempotencyKeySchema = z.string().trim().min(8).max(64).regex(/^[A-Za-z0-9_-]+$/, 'Idempotency keys use letters, digits, - and _.');
 
 export const optionalText = (max: number) => z.string().trim().max(max).default('');
+
+type WithoutDefaults<T extends z.ZodRawShape> = { [K in keyof T]: T[K] extends z.ZodDefault<infer Inner> ? Inner : T[K] };
+
+/**
+ * The PATCH form of a create schema: every field optional and no defaults filled in, so a
+ * partial update changes only the fields it names (zod's .partial() alone would still apply
+ * defaults and silently reset the fields left out).
+ */
+export function patchSchemaOf<T extends z.ZodRawShape>(schema: z.ZodObject<T>) {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [k, v] of Object.entries(schema.shape)) shape[k] = v instanceof z.ZodDefault ? (v.unwrap() as z.ZodType) : (v as z.ZodType);
+  return z.object(shape as unknown as WithoutDefaults<T>).partial();
+}

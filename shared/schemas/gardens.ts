@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText } from './common';
+import { optionalText, patchSchemaOf } from './common';
 
 /** The 12 USDA soil texture classes (USDA Soil Survey Manual, texture triangle). */
 export const soilTextures = [
@@ -51,7 +51,7 @@ export const gardenInputSchema = z.object({
   notes: optionalText(4000),
 });
 export const createGardenInputSchema = gardenInputSchema;
-export const updateGardenInputSchema = gardenInputSchema.partial();
+export const updateGardenInputSchema = patchSchemaOf(gardenInputSchema);
 export type CreateGardenInput = z.infer<typeof createGardenInputSchema>;
 export type UpdateGardenInput = z.infer<typeof updateGardenInputSchema>;
 

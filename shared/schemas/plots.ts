@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { patchSchemaOf } from './common';
 import { treatmentNameSchema } from './trials';
 
 export const plotSettingSchema = z.enum(['in_ground', 'raised_bed', 'container']);
@@ -17,7 +18,7 @@ const plotBase = z.object({
   plantCount: z.number().int().min(0).max(100000).default(1),
 });
 export const createPlotInputSchema = plotBase;
-export const updatePlotInputSchema = plotBase.partial();
+export const updatePlotInputSchema = patchSchemaOf(plotBase);
 export type CreatePlotInput = z.infer<typeof createPlotInputSchema>;
 export type UpdatePlotInput = z.infer<typeof updatePlotInputSchema>;
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { CONE_IDS } from '../agronomy/pyrometric-cones';
-import { isoDateSchema, optionalText } from './common';
+import { isoDateSchema, optionalText, patchSchemaOf } from './common';
 
 export const potShapeSchema = z.enum(['globe', 'bottle', 'cylinder', 'twin_pot']);
 export type PotShape = z.infer<typeof potShapeSchema>;
@@ -39,7 +39,7 @@ export const createPotInputSchema = potBase.refine((p) => p.neckDiameterCm === n
   path: ['neckDiameterCm'],
   message: 'The neck cannot be wider than the widest part of the pot.',
 });
-export const updatePotInputSchema = potBase.partial();
+export const updatePotInputSchema = patchSchemaOf(potBase);
 export type CreatePotInput = z.infer<typeof createPotInputSchema>;
 export type UpdatePotInput = z.infer<typeof updatePotInputSchema>;
 

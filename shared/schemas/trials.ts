@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateSchema, optionalText } from './common';
+import { isoDateSchema, optionalText, patchSchemaOf } from './common';
 
 /** Crops with FAO-56 Table 12 coefficients (ids match shared/agronomy/crop-coefficients.ts), or another crop. */
 export const cropIds = ['tomato', 'sweet-pepper', 'squash-zucchini', 'sweet-melon', 'watermelon', 'lettuce', 'green-beans', 'cucumber', 'other'] as const;
@@ -71,8 +71,7 @@ function checkTrial(v: { crop?: Crop; cropName?: string; plantingDate?: string; 
 
 export const createTrialInputSchema = trialBase.superRefine(checkTrial);
 export type CreateTrialInput = z.infer<typeof createTrialInputSchema>;
-export const updateTrialInputSchema = trialBase
-  .partial()
+export const updateTrialInputSchema = patchSchemaOf(trialBase)
   .extend({ endDate: isoDateSchema.nullable().optional() })
   .superRefine(checkTrial);
 export type UpdateTrialInput = z.infer<typeof updateTrialInputSchema>;

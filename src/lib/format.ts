@@ -3,9 +3,13 @@
 const dateFmt = new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
 const dateTimeFmt = new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
 
+const dayFmt = new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+/** A calendar day ('2026-04-10') stays that day in every time zone; an instant shows in local time. */
 export function formatDate(iso: string): string {
   const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : dateFmt.format(d);
+  if (Number.isNaN(d.getTime())) return iso;
+  return /^\d{4}-\d{2}-\d{2}$/.test(iso) ? dayFmt.format(d) : dateFmt.format(d);
 }
 
 export function formatDateTime(iso: string): string {

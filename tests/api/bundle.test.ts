@@ -12,12 +12,6 @@ afterAll(async () => {
   await t.close();
 });
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-
 describe('GET /api/trials/:trialId/report.zip', () => {
   it('bundles the CSVs, the data dictionary, every chart as SVG and PNG, and a methods-and-results text', async () => {
     const a = new ApiAgent(t.app);
@@ -29,7 +23,11 @@ describe('GET /api/trials/:trialId/report.zip', () => {
       }
       await a.post(`/api/trials/${trial.id}/harvests`, { plotId: p.id, harvestedOn: '2026-08-01', freshKg: 2 + p.label.charCodeAt(0) / 100 });
     }
-    const res = await a.agent.get(`/api/trials/${trial.id}/report.zip`).buffer(true).parse(binary);
+    const res = await a.agent.get(`/api/trials/${trial.id}/report.zip`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/zip');
     const dir = await unzipper.Open.buffer(res.body as Buffer);

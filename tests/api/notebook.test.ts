@@ -393,3 +393,26 @@ describe('sharing a trial with a cohort', () => {
     expect(await t.ds.query('SELECT * FROM trial_shares WHERE trial_id = $1', [trial.id])).toEqual([]);
   });
 });
+
+describe('partial updates (PATCH) change only the fields they name', () => {
+  it('keeps every other field of a pot, a plot, a trial and a garden', async () => {
+    const a = await grower();
+    const { garden, trial, plots, pots } = await makePairedTrial(a);
+    const pot = pots[0]!;
+    await a.patch(`/api/pots/${pot.id}`, { notes: 'North side', firingCone: '04' });
+    const cracked = await a.patch(`/api/pots/${pot.id}`, { condition: 'cracked' });
+    expect(cracked.body.data).toMatchObject({ condition: 'cracked', plotId: pot.plotId, notes: 'North side', firingCone: '04' });
+
+    const olla = plots.find((p) => p.treatment === 'olla')!;
+    const plot = await a.patch(`/api/plots/${olla.id}`, { lid: false });
+    expect(plot.body.data).toMatchObject({ lid: false, treatment: 'olla', blockKey: olla.blockKey });
+
+    await a.patch(`/api/trials/${trial.id}`, { question: 'Do pots save water?', protocolNotes: 'Jug of 2 L' });
+    const renamed = await a.patch(`/api/trials/${trial.id}`, { title: 'Renamed' });
+    expect(renamed.body.data).toMatchObject({ title: 'Renamed', question: 'Do pots save water?', protocolNotes: 'Jug of 2 L' });
+
+    await a.patch(`/api/gardens/${garden.id}`, { notes: 'Windy', coastal: true });
+    const g = await a.patch(`/api/gardens/${garden.id}`, { name: 'Front yard' });
+    expect(g.body.data).toMatchObject({ name: 'Front yard', notes: 'Windy', coastal: true });
+  });
+});
