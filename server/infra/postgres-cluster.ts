@@ -128,6 +128,13 @@ function postmasterPid(dataDir: string): number | null {
   return Number.isInteger(pid) && pid > 0 ? pid : null;
 }
 
+/** The port a running cluster listens on (line 4 of postmaster.pid). */
+function postmasterPort(dataDir: string): number | null {
+  const lines = fs.readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n');
+  const port = Number(lines[3]);
+  return Number.isInteger(port) && port > 0 ? port : null;
+}
+
 function processIsPostgres(pid: number): boolean {
   try {
     const comm = fs.readFileSync(`/proc/${pid}/comm`, 'utf8').trim();
@@ -142,9 +149,8 @@ export async function startCluster(opts: ClusterOptions): Promise<RunningCluster
   const binDir = ensurePgInstalled(log);
   if (isRoot()) ensureSystemUser();
   const dataDir = resolveDataDir(opts.dataDir, log);
-  const { port } = opts;
+  let { port } = opts;
   const bin = (name: string) => path.join(binDir, name);
-  const url = `postgres://${DB_USER}@127.0.0.1:${port}/${opts.database}`;
 
   if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) {
     log(`Creating a private PostgreSQL cluster in ${dataDir} ...`);
@@ -166,6 +172,10 @@ export async function startCluster(opts: ClusterOptions): Promise<RunningCluster
       fs.rmSync(path.join(dataDir, 'postmaster.pid'), { force: true });
     }
   }
+
+  // A cluster already running from this data directory is reused on whatever port it has.
+  if (alreadyRunning) port = postmasterPort(dataDir) ?? port;
+  const url = `postgres://${DB_USER}@127.0.0.1:${port}/${opts.database}`;
 
   let startedHere = false;
   if (!alreadyRunning) {

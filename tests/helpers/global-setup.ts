@@ -7,7 +7,7 @@ import path from 'node:path';
 import pg from 'pg';
 import type { TestProject } from 'vitest/node';
 import { createDataSource } from '../../server/db/data-source';
-import { recreateDatabase, startCluster, type RunningCluster } from '../../server/infra/postgres-cluster';
+import { ClusterSetupError, recreateDatabase, startCluster, type RunningCluster } from '../../server/infra/postgres-cluster';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -19,13 +19,19 @@ declare module 'vitest' {
 let cluster: RunningCluster | null = null;
 
 export default async function setup(project: TestProject) {
-  const port = Number(process.env.SEEPWISE_TEST_PG_PORT ?? 54339);
   process.env.SEEPWISE_PG_FSYNC = 'off';
-  cluster = await startCluster({
-    dataDir: path.resolve(process.env.SEEPWISE_DATA_DIR ?? '.data', 'pg-test'),
-    port,
-    database: 'postgres',
-  });
+  const dataDir = path.resolve(process.env.SEEPWISE_DATA_DIR ?? '.data', 'pg-test');
+  const wanted = Number(process.env.SEEPWISE_TEST_PG_PORT ?? 54339);
+  // Another checkout's test cluster may hold the usual port: take the next free one.
+  for (let attempt = 0; ; attempt++) {
+    try {
+      cluster = await startCluster({ dataDir, port: wanted + attempt, database: 'postgres' });
+      break;
+    } catch (err) {
+      if (!(err instanceof ClusterSetupError) || !/is taken/.test(err.message) || attempt >= 20 || process.env.SEEPWISE_TEST_PG_PORT) throw err;
+    }
+  }
+  const port = cluster.port;
   // One template per run and project, so two test runs on one machine never trip over each other.
   const templateDb = `seepwise_template_${project.name}_${process.pid}`;
   const url = recreateDatabase(cluster, templateDb);
