@@ -23,6 +23,7 @@ import { exportRoutes } from './routes/export.routes';
 import { gardenRoutes } from './routes/gardens.routes';
 import { importRoutes } from './routes/import.routes';
 import { logRoutes } from './routes/logs.routes';
+import { notificationRoutes } from './routes/notifications.routes';
 import { potRoutes } from './routes/pots.routes';
 import { trialRoutes } from './routes/trials.routes';
 import { notebookResolvers } from './http/resolvers';
@@ -55,6 +56,7 @@ export function buildRouteSpecs(ctx: AppContext, authLimits: AuthLimits = defaul
     ...trialRoutes(ctx),
     ...potRoutes(ctx),
     ...logRoutes(ctx),
+    ...notificationRoutes(ctx),
     ...exportRoutes(ctx),
     ...importRoutes(ctx),
   ];

@@ -10,7 +10,9 @@ import path from 'node:path';
 import { createApp } from './app';
 import { parseEnv } from './config/env';
 import { ClusterSetupError } from './infra/postgres-cluster';
+import { startJobRunner } from './jobs/runner';
 import { createLogger } from './lib/logger';
+import { createMailer } from './lib/mailer';
 import { startRuntime } from './runtime';
 import { DEMO_PASSWORD, seedDemoIfEmpty } from './db/seed/demo';
 
@@ -64,6 +66,16 @@ async function main() {
   });
   httpServer.on('request', app);
 
+  // Reminders, frost warnings and the weekly digest: pg-boss on the same database, after the migrations.
+  const jobs = await startJobRunner(
+    { ds: runtime.dataSource, env, logger, mailer: createMailer(runtime.smtpUrl, env.MAIL_FROM), publicUrl, now: () => new Date() },
+    { connectionString: runtime.databaseUrl },
+  ).catch(async (err: unknown) => {
+    await closeVite?.();
+    await runtime.shutdown();
+    throw err;
+  });
+
   console.log(`\n  Seepwise is running at ${publicUrl}\n`);
   if (runtime.smtpSink) console.log(`  Development mail is caught locally; an admin sees it under Admin → Outbox.`);
   if (seedDemo) console.log(`  Demo accounts: see README.md (e.g. ruth@saltbush.example, password ${DEMO_PASSWORD}).\n`);
@@ -76,6 +88,7 @@ async function main() {
     httpServer.closeAllConnections?.();
     await new Promise((r) => httpServer.close(r));
     await closeVite?.();
+    await jobs.stop().catch((err: unknown) => logger.warn({ err }, 'job queue did not stop cleanly'));
     await runtime.shutdown();
     process.exit(0);
   };

@@ -5,6 +5,8 @@ import { CohortEntity } from '../entities/cohort.entity';
 import { GardenEntity } from '../entities/garden.entity';
 import { HarvestEntity } from '../entities/harvest.entity';
 import { MoistureReadingEntity } from '../entities/moisture-reading.entity';
+import { NotificationPreferenceEntity } from '../entities/notification-preference.entity';
+import { NotificationSendEntity } from '../entities/notification-send.entity';
 import { ObservationEntity } from '../entities/observation.entity';
 import { PhotoEntity } from '../entities/photo.entity';
 import { PlotEntity } from '../entities/plot.entity';
@@ -41,4 +43,6 @@ export const entities = [
   AuditEntryEntity,
   TrialShareEntity,
   TrialExclusionEntity,
+  NotificationPreferenceEntity,
+  NotificationSendEntity,
 ];

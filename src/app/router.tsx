@@ -28,6 +28,7 @@ import { PlannerPage } from './routes/planner';
 import { PotsPage } from './routes/pots';
 import { RoundPage } from './routes/round';
 import { TrialPage } from './routes/trial';
+import { UnsubscribePage, unsubscribePath } from './routes/unsubscribe';
 import { CohortsPage } from './routes/cohorts';
 import { RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
 import { HomePage } from './routes/home';
@@ -72,6 +73,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.forgotPassword, element: <ForgotPasswordPage /> },
         { path: paths.resetPassword, element: <ResetPasswordPage /> },
         { path: paths.verifyEmail, element: <VerifyEmailPage /> },
+        { path: unsubscribePath, element: <UnsubscribePage /> },
         {
           element: <ShellIfSignedIn />,
           children: [{ path: paths.joinCohort, element: <JoinPage /> }],

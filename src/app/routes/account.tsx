@@ -3,6 +3,7 @@ import { AccountSettingsForm } from '@/features/auth/components/account-settings
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { EmailStatus } from '@/features/auth/components/email-status';
 import { useCurrentUser } from '@/features/auth/api/get-session';
+import { RemindersSection } from '@/features/notifications/components/reminders-section';
 import { formatDate } from '@/lib/format';
 
 const roleText = { grower: 'Grower', educator: 'Educator', admin: 'Admin' } as const;
@@ -25,6 +26,13 @@ export function AccountPage() {
       <Card role="region" aria-labelledby="email-heading" className="space-y-4">
         <h2 id="email-heading">E-mail</h2>
         <EmailStatus account={user} />
+      </Card>
+      <Card role="region" aria-labelledby="reminders-heading" className="space-y-4">
+        <div>
+          <h2 id="reminders-heading">Reminders</h2>
+          <p className="mt-1 text-sm text-ink-muted">E-mails Seepwise sends on its own. Each one has a link that stops its kind, no sign-in needed.</p>
+        </div>
+        <RemindersSection account={user} />
       </Card>
       <Card role="region" aria-labelledby="password-heading" className="space-y-4">
         <div>
