@@ -6,6 +6,7 @@ import { useCurrentUser } from '@/features/auth/api/get-session';
 import { useCohorts } from '@/features/cohorts/api/get-cohorts';
 import { CohortList } from '@/features/cohorts/components/cohort-list';
 import { useGardens } from '@/features/gardens/api/get-gardens';
+import { FrostWarnings } from '@/features/notifications/components/frost-warnings';
 import { useTrials } from '@/features/trials/api/get-trials';
 import { TrialCards } from '@/features/trials/components/trial-cards';
 
@@ -101,6 +102,7 @@ export function HomePage() {
         <h1>Hello, {user?.displayName}</h1>
         <p className="mt-1 text-ink-muted">Your gardens and trials at a glance, and what needs doing today.</p>
       </div>
+      <FrostWarnings />
       <GardensAndTrials />
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>

@@ -7,6 +7,7 @@ import { ResultsTab } from '@/features/analysis/components/results-tab';
 import { useCohorts } from '@/features/cohorts/api/get-cohorts';
 import { ImportWizard } from '@/features/import/components/import-wizard';
 import { LogsPanel } from '@/features/logs/components/logs-panel';
+import { RefillForecastTable } from '@/features/notifications/components/refill-forecast-table';
 import { useCurrentUser } from '@/features/auth/api/get-session';
 import { usePlots } from '@/features/trials/api/get-plots';
 import { useTrial } from '@/features/trials/api/get-trial';
@@ -110,7 +111,12 @@ export function TrialPage() {
         ))}
       </div>
       <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
-        {tab === 'results' ? <ResultsTab trialId={t.id} treatments={t.treatments} /> : null}
+        {tab === 'results' ? (
+          <div className="space-y-6">
+            {owner && t.status === 'active' ? <RefillForecastTable trialId={t.id} /> : null}
+            <ResultsTab trialId={t.id} treatments={t.treatments} />
+          </div>
+        ) : null}
         {tab === 'records' ? <LogsPanel trialId={t.id} plots={plots.data ?? []} editable={owner && t.status !== 'closed'} /> : null}
         {tab === 'import' && user ? <ImportWizard trialId={t.id} userId={user.id} /> : null}
         {tab === 'records' ? <ExportLinks trialId={t.id} /> : null}
