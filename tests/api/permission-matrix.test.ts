@@ -186,5 +186,5 @@ describe('permission matrix', () => {
       }
     }
     expect(leaks).toEqual([]);
-  });
+  }, 300_000);
 });

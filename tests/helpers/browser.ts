@@ -40,6 +40,8 @@ export async function startBrowserEnv(opts: { viewport?: { width: number; height
     args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
   });
   const page = context.pages()[0] ?? (await context.newPage());
+  // Generous waits: CI machines here are small and sometimes busy.
+  context.setDefaultTimeout(60_000);
   const pageErrors: string[] = [];
   page.on('pageerror', (e) => pageErrors.push(e.message));
   page.on('console', (m) => {
