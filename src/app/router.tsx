@@ -9,6 +9,8 @@ import { sessionQueryOptions } from '@/features/auth/api/get-session';
 import { cohortQueryOptions } from '@/features/cohorts/api/get-cohort';
 import { cohortMembersQueryOptions } from '@/features/cohorts/api/get-cohort-members';
 import { cohortsQueryOptions } from '@/features/cohorts/api/get-cohorts';
+import { cohortResultsQueryOptions } from '@/features/cohort-results/api/get-cohort-results';
+import { resultsQueryFromSearch } from '@/features/cohort-results/hooks/use-results-options';
 import { trialAnalysisQueryOptions } from '@/features/analysis/api/get-trial-analysis';
 import { gardenQueryOptions } from '@/features/gardens/api/get-garden';
 import { gardensQueryOptions } from '@/features/gardens/api/get-gardens';
@@ -110,7 +112,11 @@ export function createAppRouter(queryClient: QueryClient) {
             {
               path: paths.cohort(':cohortId'),
               element: <CohortPage />,
-              loader: prefetch(({ params }) => [ensure(cohortQueryOptions(params.cohortId!)), ensure(cohortMembersQueryOptions(params.cohortId!))]),
+              loader: prefetch(({ params, request }) => {
+                // The pooled results start with the page but are not awaited: they may take longer than the cohort itself.
+                void queryClient.prefetchQuery(cohortResultsQueryOptions(params.cohortId!, resultsQueryFromSearch(new URL(request.url).searchParams)));
+                return [ensure(cohortQueryOptions(params.cohortId!)), ensure(cohortMembersQueryOptions(params.cohortId!))];
+              }),
             },
           ],
         },

@@ -10,6 +10,7 @@ import { InviteForm } from '@/features/cohorts/components/invite-form';
 import { JoinCodeCard } from '@/features/cohorts/components/join-code-card';
 import { LeaveCohortCard } from '@/features/cohorts/components/leave-cohort-card';
 import { MembersList } from '@/features/cohorts/components/members-list';
+import { CohortResultsSection } from '@/features/cohort-results/components/cohort-results-section';
 import { ApiRequestError } from '@/lib/api-client';
 
 function joinUrl(code: string) {
@@ -63,6 +64,9 @@ export function CohortPage() {
       <BackLink />
       <CohortHeader cohort={c} />
 
+      {/* Pooled results span the page (forest plot and trial table need the width); before the members, as the page's answer. */}
+      <CohortResultsSection cohortId={c.id} canExclude={isLead} />
+
       <div className={isLead ? 'grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]' : 'grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]'}>
         {/* The join code comes first on a phone (it is what a lead reads out), beside the members on a wide screen. */}
         {isLead ? (
@@ -85,8 +89,6 @@ export function CohortPage() {
             <h2 id="members-heading">Members</h2>
             <MembersList cohortId={c.id} canRemove={isLead} />
           </Card>
-
-          {/* Pooled results join this page with the analysis work; until then there is deliberately no results section. */}
 
           {isLead ? (
             <Card role="region" aria-labelledby="settings-heading" className="space-y-4">

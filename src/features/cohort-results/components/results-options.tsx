@@ -1,0 +1,88 @@
+import type { ReactNode } from 'react';
+import { effectKeys, type CohortResults, type CohortResultsQuery, type EffectKey } from '@shared/schemas/cohort-results';
+import { Choice, ChoiceGroup } from '@/components/ui/choice-group';
+import type { ResultsOptionsPatch } from '../hooks/use-results-options';
+import { measureHints, measureLabels, plural } from './format';
+
+function Toggle({ label, hint, checked, onChange }: { label: string; hint: ReactNode; checked: boolean; onChange: (v: boolean) => void }) {
+  return (
+    <label className="flex min-h-12 cursor-pointer items-start gap-3 rounded-lg border border-sand-300 bg-white px-3 py-2.5 hover:bg-sand-50 has-[:checked]:border-terracotta-500 has-[:checked]:bg-terracotta-50 has-[:focus-visible]:ring-2 has-[:focus-visible]:ring-terracotta-300">
+      <input type="checkbox" className="mt-1 size-4 shrink-0 accent-terracotta-600" checked={checked} onChange={(e) => onChange(e.target.checked)} />
+      <span>
+        <span className="block font-medium text-ink">{label}</span>
+        <span className="block text-sm text-ink-muted">{hint}</span>
+      </span>
+    </label>
+  );
+}
+
+/** How the trials are pooled (method, which trials) and which measure the details below show. */
+export function ResultsOptions({
+  query,
+  measure,
+  results,
+  onChange,
+}: {
+  query: CohortResultsQuery;
+  measure: EffectKey;
+  results: CohortResults | undefined;
+  onChange: (patch: ResultsOptionsPatch) => void;
+}) {
+  const singles = results?.effects.waterLogRatio.singlePairs.eligible ?? 0;
+  const flagged = results?.counts.flagged ?? 0;
+  return (
+    <div className="grid gap-4 lg:grid-cols-3">
+      <ChoiceGroup legend="Between-garden variance (τ²)">
+        <Choice
+          name="method"
+          value="DL"
+          label="DerSimonian-Laird"
+          hint="The usual moment estimator."
+          checked={query.method === 'DL'}
+          onChange={() => onChange({ method: 'DL' })}
+        />
+        <Choice
+          name="method"
+          value="REML"
+          label="REML"
+          hint="Restricted maximum likelihood; often steadier with few trials."
+          checked={query.method === 'REML'}
+          onChange={() => onChange({ method: 'REML' })}
+        />
+      </ChoiceGroup>
+      <fieldset className="space-y-2">
+        <legend className="mb-1 block text-sm font-medium text-ink">Which trials count</legend>
+        <Toggle
+          label="Include single-pair trials"
+          hint={
+            <>
+              {singles ? `${plural(singles, 'trial')} ${singles === 1 ? 'has' : 'have'} one pair. ` : 'No trial has just one pair. '}A single pair has no spread
+              of its own, so it borrows the typical variance of the others: a pragmatic choice, not a published rule.
+            </>
+          }
+          checked={query.includeSinglePairs}
+          onChange={(v) => onChange({ includeSinglePairs: v })}
+        />
+        <Toggle
+          label="Leave out flagged trials"
+          hint={`${flagged ? `${plural(flagged, 'trial')} ${flagged === 1 ? 'has' : 'have'} a quality flag.` : 'No trial has a quality flag.'} Flags ask for a check; they do not prove an error.`}
+          checked={query.excludeFlagged}
+          onChange={(v) => onChange({ excludeFlagged: v })}
+        />
+      </fieldset>
+      <ChoiceGroup legend="Details below for">
+        {effectKeys.map((k) => (
+          <Choice
+            key={k}
+            name="measure"
+            value={k}
+            label={measureLabels[k]}
+            hint={measureHints[k]}
+            checked={measure === k}
+            onChange={() => onChange({ measure: k })}
+          />
+        ))}
+      </ChoiceGroup>
+    </div>
+  );
+}
