@@ -22,6 +22,12 @@ export function exportRoutes(ctx: AppContext): RouteSpec[] {
     ),
     route(
       'get',
+      '/cohorts/:cohortId/report.zip',
+      access.cohortMember(),
+      handle(async (req, res) => bundles.streamCohortBundle(res, String(req.params.cohortId), req.user!.id)),
+    ),
+    route(
+      'get',
       '/trials/:trialId/export/:table.csv',
       access.reader('trial', 'trialId'),
       handle(async (req, res) => {

@@ -2,12 +2,15 @@ import archiver from 'archiver';
 import type { Response } from 'express';
 import type { PoolClient } from 'pg';
 import { to as copyTo } from 'pg-copy-streams';
+import { cohortCharts } from '@shared/charts/cohort-charts';
 import { trialCharts } from '@shared/charts/trial-charts';
+import { cohortReportMarkdown } from '@shared/report/cohort-report';
 import { trialReportMarkdown } from '@shared/report/trial-report';
 import { cropLabels, type Crop } from '@shared/schemas/trials';
 import type { AppContext } from '../context';
 import { renderChart } from '../lib/render-chart';
 import { analysisService } from './analysis.service';
+import { cohortResultsService } from './cohort-results.service';
 import { dictionaryRows, exportSelect, exportTables, type ExportScope } from './export-tables';
 import Papa from 'papaparse';
 
@@ -19,6 +22,22 @@ const BOM = '\uFEFF';
  */
 export function bundleService(ctx: AppContext) {
   const analysis = analysisService(ctx);
+  const cohortResults = cohortResultsService(ctx);
+
+  /** Pipes a ZIP to the response; resolves when the response is finished. */
+  function startZip(res: Response, fileName: string) {
+    res.status(200);
+    res.setHeader('Content-Type', 'application/zip');
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
+    res.setHeader('Cache-Control', 'no-store');
+    const zip = archiver('zip', { zlib: { level: 6 } });
+    const finished = new Promise<void>((resolve, reject) => {
+      res.on('close', resolve);
+      zip.on('error', reject);
+    });
+    zip.pipe(res);
+    return { zip, finished };
+  }
 
   async function withClient<T>(fn: (client: PoolClient) => Promise<T>): Promise<T> {
     const runner = ctx.ds.createQueryRunner();
@@ -85,16 +104,7 @@ export function bundleService(ctx: AppContext) {
         files,
       });
 
-      res.status(200);
-      res.setHeader('Content-Type', 'application/zip');
-      res.setHeader('Content-Disposition', `attachment; filename="seepwise-trial-${trialId.slice(0, 8)}-report.zip"`);
-      res.setHeader('Cache-Control', 'no-store');
-      const zip = archiver('zip', { zlib: { level: 6 } });
-      const finished = new Promise<void>((resolve, reject) => {
-        res.on('close', resolve);
-        zip.on('error', reject);
-      });
-      zip.pipe(res);
+      const { zip, finished } = startZip(res, `seepwise-trial-${trialId.slice(0, 8)}-report.zip`);
       zip.append(markdown, { name: 'methods-and-results.md' });
       for (const c of rendered) {
         zip.append(c.svg, { name: `charts/${c.id}.svg` });
@@ -104,7 +114,43 @@ export function bundleService(ctx: AppContext) {
       await zip.finalize();
       await finished;
     },
-    addTables,
-    withClient,
+
+    /** The students' bundle: the cohort's pseudonymised CSVs, its charts, and the methods text with licence. */
+    async streamCohortBundle(res: Response, cohortId: string, userId: string) {
+      const [cohort] = (await ctx.ds.query('SELECT name, licence FROM cohorts WHERE id = $1', [cohortId])) as { name: string; licence: string }[];
+      const results = await cohortResults.results(cohortId, userId, { method: 'DL', confidence: 0.95, includeSinglePairs: false, excludeFlagged: false });
+      const charts = cohortCharts(results, { units: 'metric', width: 640 });
+      const rendered = await Promise.all(charts.map(async (c) => ({ ...c, ...(await renderChart(c.spec)) })));
+      const files = [
+        ...exportTables.map((t) => `data/${t.name}.csv`),
+        'data/data-dictionary.csv',
+        'data/trials.csv',
+        ...rendered.flatMap((c) => [`charts/${c.id}.svg`, `charts/${c.id}.png`]),
+      ];
+      const markdown = cohortReportMarkdown({ cohortName: cohort!.name, licence: cohort!.licence, results, generatedOn: ctx.now().toISOString().slice(0, 10), files });
+      const { zip, finished } = startZip(res, `seepwise-cohort-${cohortId.slice(0, 8)}-report.zip`);
+      zip.append(markdown, { name: 'methods-and-results.md' });
+      // One row per trial with its pseudonym, effects, flags and exclusion: the table behind the forest plot.
+      const trialRows = results.trials.map((t) => ({
+        member: t.pseudonym,
+        crop: t.crop,
+        region: t.region.label,
+        soil_texture: t.soilTexture,
+        pairs: t.pairs,
+        completeness_pct: t.completeness.share === null ? '' : Math.round(t.completeness.share * 100),
+        water_log_ratio: t.effects.waterLogRatio?.estimate ?? '',
+        water_log_ratio_variance: t.effects.waterLogRatio?.variance ?? '',
+        flags: t.flags.map((f) => f.kind).join(' '),
+        excluded: results.exclusions.some((x) => x.trialId === t.trialId) ? 'true' : 'false',
+      }));
+      zip.append(BOM + Papa.unparse(trialRows, { newline: '\r\n', escapeFormulae: true }), { name: 'data/trials.csv' });
+      for (const c of rendered) {
+        zip.append(c.svg, { name: `charts/${c.id}.svg` });
+        zip.append(c.png, { name: `charts/${c.id}.png` });
+      }
+      await withClient((client) => addTables(zip, client, { kind: 'cohort', cohortId }, 'data'));
+      await zip.finalize();
+      await finished;
+    },
   };
 }

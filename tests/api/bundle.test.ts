@@ -60,3 +60,43 @@ describe('GET /api/trials/:trialId/report.zip', () => {
     expect(png.subarray(0, 8).toString('hex')).toBe('89504e470d0a1a0a');
   });
 });
+
+describe('GET /api/cohorts/:cohortId/report.zip', () => {
+  it("gives a student the cohort's pseudonymised data, charts and a methods text with the licence", async () => {
+    const lead = new ApiAgent(t.app);
+    await lead.signUp({ email: uniqueEmail('lead'), role: 'educator' });
+    const cohort = (await lead.post('/api/cohorts', { name: 'Dry Wash Class', licence: 'CC-BY-4.0' })).body.data;
+    for (const [i, name] of ['Ruth Realname', 'Tomás Realname', 'Inés Realname'].entries()) {
+      const g = new ApiAgent(t.app);
+      await g.signUp({ email: uniqueEmail(`g${i}`), displayName: name });
+      await g.post('/api/cohorts/join', { code: cohort.joinCode });
+      const { trial, plots } = await makePairedTrial(g);
+      for (const p of plots) {
+        const extra = (p.label.charCodeAt(0) - 64) * (i + 1);
+        await g.post(`/api/trials/${trial.id}/water-events`, { plotId: p.id, occurredAt: '2026-06-01T07:00:00Z', kind: p.treatment === 'olla' ? 'olla_refill' : 'surface', volumeL: p.treatment === 'olla' ? 10 + extra : 30 + 2 * extra });
+        await g.post(`/api/trials/${trial.id}/harvests`, { plotId: p.id, harvestedOn: '2026-08-01', freshKg: 2 + extra / 10 });
+      }
+      await g.post(`/api/trials/${trial.id}/shares`, { cohortId: cohort.id });
+    }
+    const student = new ApiAgent(t.app);
+    await student.signUp({ email: uniqueEmail('student'), displayName: 'Student Realname' });
+    await student.post('/api/cohorts/join', { code: cohort.joinCode, role: 'observer' });
+
+    const res = await student.agent.get(`/api/cohorts/${cohort.id}/report.zip`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(res.status).toBe(200);
+    const dir = await unzipper.Open.buffer(res.body as Buffer);
+    const names = dir.files.map((f) => f.path);
+    expect(names).toEqual(expect.arrayContaining(['methods-and-results.md', 'data/water-events.csv', 'data/trials.csv', 'data/data-dictionary.csv', 'charts/forest-water-saved.svg', 'charts/forest-water-saved.png']));
+    const all = (await Promise.all(dir.files.filter((f) => !f.path.endsWith('.png')).map(async (f) => (await f.buffer()).toString('utf8')))).join('\n');
+    expect(all).not.toMatch(/Realname/);
+    const md = (await dir.files.find((f) => f.path === 'methods-and-results.md')!.buffer()).toString('utf8');
+    expect(md).toMatch(/random-effects meta-analysis \(DerSimonian-Laird/);
+    expect(md).toMatch(/Water saved/);
+    expect(md).toMatch(/k = 3 trials/);
+    expect(md).toMatch(/Licence: Creative Commons Attribution 4\.0 International \(CC BY 4\.0\)/);
+  });
+});
