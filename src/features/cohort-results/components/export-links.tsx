@@ -15,6 +15,13 @@ export function ExportLinks({ cohortId }: { cohortId: string }) {
         Tidy CSV files, one row per observation, ISO 8601 dates and SI units in the column names. Trials appear by a code and the member’s pseudonym, never by
         name; locations are not included. Trials the lead left out are still in the files, so a report can say what was left out and why.
       </p>
+      <a
+        className="inline-flex min-h-11 items-center rounded-lg bg-terracotta-600 px-4 font-medium text-white hover:bg-terracotta-700"
+        href={`/api/cohorts/${encodeURIComponent(cohortId)}/report.zip`}
+        download
+      >
+        Report bundle (ZIP): all the files below, every chart as SVG and PNG, and a methods-and-results text with the licence
+      </a>
       <ul className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3">
         {files.map((f) => (
           <li key={f.table} className="rounded-lg border border-sand-200 bg-white p-3">
