@@ -17,6 +17,15 @@ const single: Record<LogKind, { resource: string; param: string }> = {
   observations: { resource: 'observation', param: 'observationId' },
 };
 
+/**
+ * multer and busboy fail on the request itself (wrong field, two files, too many fields, a broken
+ * multipart body, a NUL in a part header): a 400, not a 500. Size stays a 413 (error handler).
+ */
+function uploadError(err: unknown) {
+  if (!err || (err as { code?: string }).code === 'LIMIT_FILE_SIZE') return err;
+  return AppError.validation(`The upload could not be read (${(err as Error).message ?? 'malformed form'}). Send one image in the "photo" field.`);
+}
+
 export function logRoutes(ctx: AppContext): RouteSpec[] {
   const svc = logsService(ctx);
   const round = roundService(ctx);
@@ -88,7 +97,7 @@ export function logRoutes(ctx: AppContext): RouteSpec[] {
       'post',
       '/observations/:observationId/photos',
       access.owner('observation', 'observationId'),
-      (req, res, next) => upload(req, res, (err: unknown) => next(err)),
+      (req, res, next) => upload(req, res, (err: unknown) => next(uploadError(err))),
       handle(async (req, res) => {
         if (!req.file) throw AppError.validation('Attach a photo in the "photo" field.');
         res.status(201).json({ data: await photos.add(id(req.params.observationId), req.file.buffer) });

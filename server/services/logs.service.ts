@@ -206,7 +206,8 @@ export function logsService(ctx: AppContext) {
         if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error));
         const next = merged.data as Record<string, unknown>;
         await checkAll(tx, kind, before.trialId, next);
-        const fields = Object.keys(patch).filter((f) => f in cfg.columns && f !== 'idempotencyKey');
+        // Own columns only: `'constructor' in cfg.columns` is true too, and would reach the SQL as a column name.
+        const fields = Object.keys(patch).filter((f) => Object.hasOwn(cfg.columns, f) && f !== 'idempotencyKey');
         if (fields.length) {
           const sets = fields.map((f, i) => `${cfg.columns[f]} = $${i + 2}`);
           await tx.query(`UPDATE ${cfg.table} SET ${sets.join(', ')} WHERE id = $1`, [id, ...fields.map((f) => next[f])]);
