@@ -5,8 +5,9 @@ const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 const alias = { '@shared': r('./shared'), '@server': r('./server'), '@': r('./src') };
 
 /**
- * Three projects: unit (pure shared/ code), api (supertest against a real PostgreSQL),
- * browser (playwright-core driving Debian's Chromium against the built client).
+ * Four projects: unit (pure shared/ code), api (supertest against a real PostgreSQL),
+ * browser (playwright-core driving Debian's Chromium against the built client), resilience
+ * (database restarts, two instances, a killed import, backup and restore).
  */
 export default defineConfig({
   resolve: { alias },
@@ -39,6 +40,19 @@ export default defineConfig({
           hookTimeout: 240_000,
           pool: 'forks',
           fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          // Fault tests on PostgreSQL clusters of their own (ports 54359 and up), never the test or demo one.
+          name: 'resilience',
+          include: ['tests/resilience/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/resilience/global-setup.ts'],
+          testTimeout: 300_000,
+          hookTimeout: 300_000,
+          pool: 'forks',
         },
       },
     ],
