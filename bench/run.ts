@@ -1,0 +1,62 @@
+/**
+ * `npm run bench [-- --scale 0.001] [--skip-browser] [--out DIR] [--keep-db]`
+ * `npm run bench -- --render bench/results.json` rebuilds the table and RESULTS.md from saved measurements.
+ *
+ * Starts the benchmark's own PostgreSQL (.data/pg-bench on 127.0.0.1:54349), loads the invented
+ * scenario, measures, and writes bench/results.json and bench/RESULTS.md. SEEPWISE_PG_FSYNC=off is
+ * honoured (and reported) like everywhere else; the default is fsync=on.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { defaultOptions, runBench, type BenchOptions, type BenchResults } from './bench';
+import { renderMarkdown, tableRows } from './lib/report';
+
+function parseArgs(argv: string[]): Partial<BenchOptions> {
+  const o: Partial<BenchOptions> = {};
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i]!;
+    const value = () => {
+      const v = argv[++i];
+      if (v === undefined) throw new Error(`${a} needs a value`);
+      return v;
+    };
+    if (a === '--scale') {
+      o.scale = Number(value());
+      if (!(o.scale > 0 && o.scale <= 1)) throw new Error('--scale takes a number in (0, 1]');
+    } else if (a === '--skip-browser') o.skipBrowser = true;
+    else if (a === '--out') o.outDir = path.resolve(value());
+    else if (a === '--keep-db') o.keepDatabase = true;
+    else if (a === '--pg-port') o.pgPort = Number(value());
+    else if (a === '--help' || a === '-h') {
+      console.log('npm run bench -- [--scale 0.001] [--skip-browser] [--out DIR] [--keep-db] [--pg-port 54349]');
+      process.exit(0);
+    } else throw new Error(`Unknown option ${a}`);
+  }
+  return o;
+}
+
+// `npm run bench -- --render bench/results.json`: rebuild the table and RESULTS.md from saved measurements.
+const renderAt = process.argv.indexOf('--render');
+if (renderAt !== -1) {
+  const file = path.resolve(process.argv[renderAt + 1] ?? 'bench/results.json');
+  const saved = JSON.parse(fs.readFileSync(file, 'utf8')) as BenchResults;
+  saved.table = tableRows(saved);
+  fs.writeFileSync(file, JSON.stringify(saved, null, 2) + '\n');
+  fs.writeFileSync(path.join(path.dirname(file), 'RESULTS.md'), renderMarkdown(saved));
+  console.log(`re-rendered ${file} and RESULTS.md`);
+  process.exit(0);
+}
+
+const options = { ...defaultOptions(), ...parseArgs(process.argv.slice(2)) };
+runBench(options).then(
+  (r) => {
+    const misses = r.table.filter((row) => row.status === 'miss');
+    console.log(`\n${r.table.map((row) => `${row.status.padEnd(7)} ${row.id.padEnd(3)} ${row.figure}: ${row.value}`).join('\n')}`);
+    console.log(`\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : 'Every target met.'}`);
+    process.exit(0);
+  },
+  (err: unknown) => {
+    console.error(err);
+    process.exit(1);
+  },
+);
