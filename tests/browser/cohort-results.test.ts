@@ -66,7 +66,7 @@ beforeAll(async () => {
   await sharedTrial(g2, { crop: 'tomato', potL: 8, shape: 'globe', saving: 0.55, lat: 33.6 });
   await sharedTrial(g2, { crop: 'sweet-pepper', potL: 12, shape: 'cylinder', saving: 0.38, lat: 33.6 });
   await sharedTrial(g2, { crop: 'tomato', potL: 8, shape: 'globe', saving: 0.5, lat: 33.6, pairs: 1 });
-}, 180_000);
+});
 
 afterAll(async () => {
   await env?.close();
@@ -236,7 +236,7 @@ describe('cohort results in the browser', () => {
     await headline.getByText('Across 3 trials', { exact: false }).waitFor();
     expect(env.pageErrors).toEqual([]);
     await signOut(page);
-  }, 120_000);
+  });
 
   it('the observer sees the same page, the reason, and downloads, without exclusion controls', async () => {
     const { page } = env;
@@ -269,7 +269,7 @@ describe('cohort results in the browser', () => {
     await at360('cohort-results-observer');
     expect(env.pageErrors).toEqual([]);
     await signOut(page);
-  }, 120_000);
+  });
 
   it('the demo network’s lead reads a whole season: many trials, flags and subgroups, pseudonyms only', async () => {
     const { page } = env;
@@ -299,5 +299,5 @@ describe('cohort results in the browser', () => {
     await page.getByRole('heading', { name: 'What changes the harvest per plant' }).waitFor();
     await env.screenshot('cohort-results-demo-harvest-1280');
     expect(env.pageErrors).toEqual([]);
-  }, 120_000);
+  });
 });
