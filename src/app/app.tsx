@@ -1,15 +1,34 @@
-import { QueryClientProvider } from '@tanstack/react-query';
-import { useState } from 'react';
+import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
+import { useEffect, useRef, useState } from 'react';
 import { RouterProvider } from 'react-router-dom';
+import { OfflineBar } from '@/features/offline/components/pending-send-badge';
+import { afterRestore } from '@/features/offline/outbox';
+import { persistOptions } from '@/features/offline/persist';
 import { createQueryClient } from './query-client';
 import { createAppRouter } from './router';
 
+type AppRouter = ReturnType<typeof createAppRouter>;
+
 export function App() {
   const [queryClient] = useState(createQueryClient);
-  const [router] = useState(() => createAppRouter(queryClient));
+  // The router's loaders read the cache as soon as it exists, so it is made once what this phone
+  // kept (session, trial, Round, unsent saves) is back in the cache.
+  const routerRef = useRef<AppRouter | null>(null);
+  const [router, setRouter] = useState<AppRouter | null>(null);
+  const [restored, setRestored] = useState(false);
+  useEffect(() => {
+    if (!restored) return;
+    routerRef.current ??= createAppRouter(queryClient);
+    setRouter(routerRef.current);
+  }, [restored, queryClient]);
+  const onRestored = () => {
+    afterRestore(queryClient);
+    setRestored(true);
+  };
   return (
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>
+    <PersistQueryClientProvider client={queryClient} persistOptions={persistOptions} onSuccess={onRestored} onError={onRestored}>
+      <OfflineBar />
+      {router ? <RouterProvider router={router} /> : <p className="p-8">Loading…</p>}
+    </PersistQueryClientProvider>
   );
 }

@@ -1,4 +1,8 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
+import { sessionQueryOptions } from '@/features/auth/api/get-session';
+import { syncOnlineStatus } from '@/features/offline/online';
+import { persistQueries } from '@/features/offline/persist';
+import { registerRoundSave } from '@/features/round/api/save-round';
 import { ApiRequestError } from '@/lib/api-client';
 
 /** Set when a request finds the session gone, so the sign-in page can say why. */
@@ -26,5 +30,18 @@ export function createQueryClient() {
       },
     },
   });
+
+  // Offline quick entry: the Round's save waits on the phone and resumes after a reload, and what
+  // the Round screen needs to open without a connection is kept on the phone (features/offline).
+  syncOnlineStatus();
+  registerRoundSave(client);
+  // Prefixes of sessionQueryOptions, trialKeys.detail(id) and queryRoots.round(id). They stay in
+  // memory (a few small objects), or an unvisited Round would drop out of storage after the default
+  // five minutes. Infinity, not "30 days": a timer above 2^31 − 1 ms (24.8 days) fires at once.
+  const kept = [sessionQueryOptions().queryKey, ['trials', 'detail'] as const, ['round'] as const];
+  for (const key of kept) {
+    persistQueries(key);
+    client.setQueryDefaults(key, { gcTime: Infinity });
+  }
   return client;
 }

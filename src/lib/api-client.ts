@@ -42,10 +42,30 @@ export interface ApiEnvelope<T, M = Record<string, unknown>> {
   meta?: M;
 }
 
-async function requestEnvelope<T, M>(method: Method, url: string, body?: unknown, init: RequestInit = {}): Promise<ApiEnvelope<T, M>> {
+/**
+ * Fetches the session's CSRF token when none is held: a page restored from this phone's storage
+ * (a Round saved offline, sent after a reload) has not read /api/auth/session yet. Concurrent
+ * callers share one request.
+ */
+let tokenRequest: Promise<void> | null = null;
+function refreshCsrfToken(): Promise<void> {
+  tokenRequest ??= fetch('/api/auth/session', { credentials: 'same-origin', headers: { Accept: 'application/json' } })
+    .then(async (res) => {
+      const token = res.ok ? ((await res.json()) as { data?: { csrfToken?: string } }).data?.csrfToken : undefined;
+      if (token) csrfToken = token;
+    })
+    .catch(() => undefined)
+    .finally(() => {
+      tokenRequest = null;
+    });
+  return tokenRequest;
+}
+
+async function requestEnvelope<T, M>(method: Method, url: string, body?: unknown, init: RequestInit = {}, tokenRetried = false): Promise<ApiEnvelope<T, M>> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
   if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
+  if (method !== 'GET' && !csrfToken) await refreshCsrfToken();
   if (method !== 'GET' && csrfToken) headers['X-CSRF-Token'] = csrfToken;
   let res: Response;
   try {
@@ -69,6 +89,13 @@ async function requestEnvelope<T, M>(method: Method, url: string, body?: unknown
   }
   if (!res.ok) {
     const err = (json as ApiError | null)?.error;
+    // A stale token (the session was renewed since the page read it): the CSRF check refuses before
+    // any handler runs, so reading the token again and repeating the request once is safe.
+    if (res.status === 403 && err?.code === 'csrf_invalid' && method !== 'GET' && !tokenRetried) {
+      csrfToken = null;
+      await refreshCsrfToken();
+      if (csrfToken) return requestEnvelope<T, M>(method, url, body, init, true);
+    }
     throw new ApiRequestError(res.status, err?.code ?? 'http_error', err?.message ?? `Request failed (${res.status}).`, err?.details);
   }
   return json as ApiEnvelope<T, M>;

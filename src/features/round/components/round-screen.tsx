@@ -1,22 +1,62 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { useUnits } from '@/lib/units';
 import { cn } from '@/lib/utils';
 import { useRound, type RoundPot } from '../api/get-round';
+import { useRoundSendState } from '../api/round-outbox';
 import { useSaveRound } from '../api/save-round';
 
+/** `at` / `on`: when an entry was first logged, kept if a refused save puts it back on the screen. */
 type Entry =
-  | { kind: 'refill'; potId: string; plotId: string; volume: number }
-  | { kind: 'surface'; plotId: string; volume: number }
-  | { kind: 'moisture'; plotId: string; method: MoistureMethod; depthCm: number; value: number }
-  | { kind: 'harvest'; plotId: string; freshKg: number; count: number | null };
+  | { kind: 'refill'; potId: string; plotId: string; volume: number; at?: string }
+  | { kind: 'surface'; plotId: string; volume: number; at?: string }
+  | { kind: 'moisture'; plotId: string; method: MoistureMethod; depthCm: number; value: number; at?: string }
+  | { kind: 'harvest'; plotId: string; freshKg: number; count: number | null; on?: string };
 type WaterEntry = Extract<Entry, { kind: 'refill' | 'surface' }>;
 
 function newKey(): string {
   return typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 12)}`;
 }
+
+/** The taps of a walk as one Round request; every entry gets its idempotency key here, once. */
+function toInput(entries: Entry[], now: string): RoundInput {
+  const today = now.slice(0, 10);
+  return {
+    entries: entries.map((en): RoundInput['entries'][number] => {
+      switch (en.kind) {
+        case 'refill':
+          return { type: 'water', entry: { plotId: en.plotId, potId: en.potId, occurredAt: en.at ?? now, kind: 'olla_refill', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } };
+        case 'surface':
+          return { type: 'water', entry: { plotId: en.plotId, potId: null, occurredAt: en.at ?? now, kind: 'surface', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } };
+        case 'moisture':
+          return { type: 'moisture', entry: { plotId: en.plotId, takenAt: en.at ?? now, method: en.method, depthCm: en.depthCm, value: en.value, idempotencyKey: newKey() } };
+        case 'harvest':
+          return { type: 'harvest', entry: { plotId: en.plotId, harvestedOn: en.on ?? today, freshKg: en.freshKg, count: en.count, marketableKg: null, notes: '', idempotencyKey: newKey() } };
+      }
+    }),
+  };
+}
+
+/** A refused request back as taps, each with the time it was logged. */
+function fromInput(input: RoundInput): Record<string, Entry> {
+  const out: Record<string, Entry> = {};
+  for (const e of input.entries) {
+    if (e.type === 'water' && e.entry.kind === 'olla_refill' && e.entry.potId) {
+      out[`pot:${e.entry.potId}`] = { kind: 'refill', potId: e.entry.potId, plotId: e.entry.plotId, volume: e.entry.volumeL, at: e.entry.occurredAt };
+    } else if (e.type === 'water') {
+      out[`plot:${e.entry.plotId}`] = { kind: 'surface', plotId: e.entry.plotId, volume: e.entry.volumeL, at: e.entry.occurredAt };
+    } else if (e.type === 'moisture') {
+      out[`moisture:${e.entry.plotId}:${e.entry.idempotencyKey ?? newKey()}`] = { kind: 'moisture', plotId: e.entry.plotId, method: e.entry.method, depthCm: e.entry.depthCm, value: e.entry.value, at: e.entry.takenAt };
+    } else {
+      out[`harvest:${e.entry.plotId}:${e.entry.idempotencyKey ?? newKey()}`] = { kind: 'harvest', plotId: e.entry.plotId, freshKg: e.entry.freshKg, count: e.entry.count, on: e.entry.harvestedOn };
+    }
+  }
+  return out;
+}
+
+const records = (n: number) => `${n} record${n === 1 ? '' : 's'}`;
 
 /** Days since an ISO instant, for "last refilled 2 days ago". */
 function daysAgo(iso: string | null): string {
@@ -41,7 +81,14 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
   const round = useRound(trialId);
   const save = useSaveRound(trialId);
   const [entries, setEntries] = useState<Record<string, Entry>>({});
-  const [done, setDone] = useState<string | null>(null);
+  // A refused save: its entries come back (taps made since then win), with the server's reason.
+  const [refusal, setRefusal] = useState<{ message: string; keys: string[] } | null>(null);
+  const onRefused = useCallback((input: RoundInput, message: string) => {
+    const back = fromInput(input);
+    setEntries((e) => ({ ...back, ...e }));
+    setRefusal((r) => ({ message, keys: [...(r?.keys ?? []), ...Object.keys(back)] }));
+  }, []);
+  const sending = useRoundSendState(trialId, onRefused);
   const step = units.system === 'us' ? 0.25 : 0.5;
 
   const pots = useMemo(() => {
@@ -78,30 +125,13 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
     });
 
   const count = Object.keys(entries).length;
+  // The walk goes to the queue at once: sent now with a connection, kept on the phone without one.
   const submit = () => {
-    const now = new Date().toISOString();
-    const today = now.slice(0, 10);
-    const input: RoundInput = {
-      entries: Object.values(entries).map((en): RoundInput['entries'][number] => {
-        switch (en.kind) {
-          case 'refill':
-            return { type: 'water', entry: { plotId: en.plotId, potId: en.potId, occurredAt: now, kind: 'olla_refill', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } };
-          case 'surface':
-            return { type: 'water', entry: { plotId: en.plotId, potId: null, occurredAt: now, kind: 'surface', volumeL: en.volume, source: 'mains', fertiliser: false, notes: '', idempotencyKey: newKey() } };
-          case 'moisture':
-            return { type: 'moisture', entry: { plotId: en.plotId, takenAt: now, method: en.method, depthCm: en.depthCm, value: en.value, idempotencyKey: newKey() } };
-          case 'harvest':
-            return { type: 'harvest', entry: { plotId: en.plotId, harvestedOn: today, freshKg: en.freshKg, count: en.count, marketableKg: null, notes: '', idempotencyKey: newKey() } };
-        }
-      }),
-    };
-    setDone(null);
-    save.mutate(input, {
-      onSuccess: (res) => {
-        setEntries({});
-        setDone(`Saved ${res.length} record${res.length === 1 ? '' : 's'}.`);
-      },
-    });
+    const input = toInput(Object.values(entries), new Date().toISOString());
+    setRefusal(null);
+    setEntries({});
+    sending.clearRefused();
+    save.mutate({ trialId, input });
   };
 
   const row = (key: string, entry: WaterEntry, heading: string, sub: string, level: number | null, capacity: number | null) => {
@@ -113,7 +143,10 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
         <div className="flex items-center gap-3">
           <div className="min-w-0 flex-1">
             <p className="font-semibold">{heading}</p>
-            <p className="text-sm text-ink-muted">{sub}</p>
+            <p className="text-sm text-ink-muted">
+              {sub}
+              {sending.waitingFor.has(key) ? <span className="font-medium text-terracotta-700"> · watered, waiting to send</span> : null}
+            </p>
             {level !== null && capacity ? (
               <div className="mt-1 flex items-center gap-2" aria-label={`Estimated ${Math.round((level / capacity) * 100)}% full`}>
                 <div className="h-2 w-24 overflow-hidden rounded bg-sand-200">
@@ -155,8 +188,32 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
         <h1>{title}</h1>
         <p className="text-sm text-ink-muted">Tap each pot you refilled (the last volume is filled in; adjust with − and +), then save once at the bottom.</p>
       </div>
-      {done ? <Alert tone="success">{done}</Alert> : null}
-      {save.isError ? <Alert tone="error">{save.error.message} Nothing was saved; your taps are kept, so you can try again.</Alert> : null}
+      {refusal ? (
+        <Alert tone="error">
+          {refusal.message} Nothing was saved; your taps are back, so you can correct them and save again.{' '}
+          <button
+            type="button"
+            className="font-medium underline"
+            onClick={() => {
+              sending.clearRefused();
+              setEntries((e) => Object.fromEntries(Object.entries(e).filter(([k]) => !refusal.keys.includes(k))));
+              setRefusal(null);
+            }}
+          >
+            Discard them
+          </button>
+        </Alert>
+      ) : null}
+      {sending.waiting > 0 && sending.queued ? (
+        <Alert tone="warning">
+          <strong>Saved on this phone — waiting to send ({sending.waiting})</strong>
+          <span className="block">They are sent by themselves when the connection returns. You can keep logging.</span>
+        </Alert>
+      ) : sending.waiting > 0 ? (
+        <Alert tone="info">Sending {records(sending.waiting)}…</Alert>
+      ) : sending.sent ? (
+        <Alert tone="success">{sending.sent.waited ? `Sent — ${records(sending.sent.n)} saved.` : `Saved ${records(sending.sent.n)}.`}</Alert>
+      ) : null}
       <section aria-labelledby="pots-heading" className="space-y-2">
         <h2 id="pots-heading" className="text-lg">
           Pots ({pots.length})
@@ -208,8 +265,8 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
       />
       <div className="fixed inset-x-0 bottom-0 border-t border-sand-200 bg-white/95 p-3 backdrop-blur">
         <div className="mx-auto max-w-xl">
-          <Button size="lg" className="w-full" disabled={count === 0 || save.isPending} onClick={submit}>
-            {save.isPending ? 'Saving…' : count === 0 ? 'Tap what you watered' : `Save ${count} record${count === 1 ? '' : 's'}`}
+          <Button size="lg" className="w-full" disabled={count === 0} onClick={submit}>
+            {count === 0 ? 'Tap what you watered' : `Save ${records(count)}`}
           </Button>
         </div>
       </div>
