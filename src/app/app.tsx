@@ -1,5 +1,5 @@
 import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
-import { useEffect, useRef, useState } from 'react';
+import { Suspense, useEffect, useRef, useState } from 'react';
 import { RouterProvider } from 'react-router-dom';
 import { OfflineBar } from '@/features/offline/components/pending-send-badge';
 import { afterRestore } from '@/features/offline/outbox';
@@ -27,8 +27,11 @@ export function App() {
   };
   return (
     <PersistQueryClientProvider client={queryClient} persistOptions={persistOptions} onSuccess={onRestored} onError={onRestored}>
-      <OfflineBar />
-      {router ? <RouterProvider router={router} /> : <p className="p-8">Loading…</p>}
+      {/* A screen whose strings are not loaded yet waits here (src/i18n: one file per feature and language). */}
+      <Suspense fallback={<p className="p-8">…</p>}>
+        <OfflineBar />
+        {router ? <RouterProvider router={router} /> : <p className="p-8">…</p>}
+      </Suspense>
     </PersistQueryClientProvider>
   );
 }

@@ -1,5 +1,6 @@
 import { createContext, useContext, useMemo, type ReactNode } from 'react';
 import { fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from '@shared/units';
+import { numberFormat } from './format';
 
 interface UnitsApi {
   system: UnitSystem;
@@ -18,8 +19,6 @@ export function UnitsProvider({ system, children }: { system: UnitSystem; childr
   return <UnitsContext.Provider value={system}>{children}</UnitsContext.Provider>;
 }
 
-const numberFmt = (digits: number) => new Intl.NumberFormat(undefined, { maximumFractionDigits: digits, minimumFractionDigits: 0 });
-
 /** Values are stored in SI and shown in the account's unit system (metric or US customary). */
 export function useUnits(): UnitsApi {
   const system = useContext(UnitsContext);
@@ -29,7 +28,7 @@ export function useUnits(): UnitsApi {
       show: (si, q) => toDisplay(si, q, system),
       toSI: (v, q) => fromDisplay(v, q, system),
       label: (q) => unitLabel(q, system),
-      fmt: (si, q, digits = 1) => (si === null || si === undefined || !Number.isFinite(si) ? '—' : `${numberFmt(digits).format(toDisplay(si, q, system))} ${unitLabel(q, system)}`),
+      fmt: (si, q, digits = 1) => (si === null || si === undefined || !Number.isFinite(si) ? '—' : `${numberFormat(digits).format(toDisplay(si, q, system))} ${unitLabel(q, system)}`),
     }),
     [system],
   );

@@ -1,26 +1,29 @@
 import { useState, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { NavLink, useNavigate } from 'react-router-dom';
 import type { Account } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
+import { useAccountLanguage } from '@/i18n/use-account-language';
 import { UnitsProvider } from '@/lib/units';
 import { cn } from '@/lib/utils';
 import { Logo } from './logo';
 
 export interface NavItem {
   to: string;
-  label: string;
+  /** Key under `nav` in the common namespace. */
+  label: 'home' | 'pots' | 'planner' | 'cohorts' | 'guides' | 'account' | 'admin';
   /** Roles that see the item; omitted: everyone signed in. */
   roles?: Account['role'][];
 }
 
 const navItems: NavItem[] = [
-  { to: paths.home, label: 'Home' },
-  { to: paths.pots, label: 'Pot shelf' },
-  { to: paths.planner, label: 'Planner' },
-  { to: paths.cohorts, label: 'Cohorts' },
-  { to: paths.guides, label: 'Guides' },
-  { to: paths.account, label: 'Account' },
-  { to: paths.admin, label: 'Admin', roles: ['admin'] },
+  { to: paths.home, label: 'home' },
+  { to: paths.pots, label: 'pots' },
+  { to: paths.planner, label: 'planner' },
+  { to: paths.cohorts, label: 'cohorts' },
+  { to: paths.guides, label: 'guides' },
+  { to: paths.account, label: 'account' },
+  { to: paths.admin, label: 'admin', roles: ['admin'] },
 ];
 
 export function visibleNavItems(role: Account['role']) {
@@ -28,6 +31,8 @@ export function visibleNavItems(role: Account['role']) {
 }
 
 export function AppShell({ user, onSignOut, children }: { user: Account; onSignOut: () => Promise<void>; children: ReactNode }) {
+  const { t } = useTranslation();
+  useAccountLanguage(user.language);
   const [open, setOpen] = useState(false);
   const navigate = useNavigate();
   const items = visibleNavItems(user.role);
@@ -38,11 +43,11 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
   return (
     <div className="min-h-screen">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
-        Skip to content
+        {t(($) => $.skipToContent)}
       </a>
       <header className="border-b border-sand-200 bg-white">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-4 py-3 md:flex-nowrap">
-          <NavLink to={paths.home} aria-label="Seepwise home">
+          <NavLink to={paths.home} aria-label={t(($) => $.homeLink)}>
             <Logo />
           </NavLink>
           <button
@@ -52,9 +57,9 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
             aria-controls="main-nav"
             onClick={() => setOpen((v) => !v)}
           >
-            Menu
+            {t(($) => $.menu)}
           </button>
-          <nav id="main-nav" aria-label="Main" className={cn('order-last basis-full md:order-none md:ml-6 md:flex md:basis-auto md:items-center', open ? 'block' : 'hidden md:flex')}>
+          <nav id="main-nav" aria-label={t(($) => $.mainNav)} className={cn('order-last basis-full md:order-none md:ml-6 md:flex md:basis-auto md:items-center', open ? 'block' : 'hidden md:flex')}>
             <ul className="flex flex-col gap-1 md:flex-row md:gap-1">
               {items.map((item) => (
                 <li key={item.to}>
@@ -66,7 +71,7 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
                       cn('block rounded-lg px-3 py-3 text-base font-medium md:py-2 md:text-sm', isActive ? 'bg-terracotta-50 text-terracotta-800' : 'text-ink-muted hover:bg-sand-100 hover:text-ink')
                     }
                   >
-                    {item.label}
+                    {t(($) => $.nav[item.label])}
                   </NavLink>
                 </li>
               ))}
@@ -74,25 +79,23 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
           </nav>
           <div className="hidden items-center gap-3 md:ml-auto md:flex">
             <span className="text-sm text-ink-muted">
-              {user.displayName} <span className="rounded bg-sand-100 px-1.5 py-0.5 text-xs capitalize">{user.role}</span>
+              {user.displayName} <span className="rounded bg-sand-100 px-1.5 py-0.5 text-xs capitalize">{t(($) => $.roles[user.role])}</span>
             </span>
             <button type="button" className="text-sm font-medium text-terracotta-700 underline" onClick={() => void signOut()}>
-              Sign out
+              {t(($) => $.signOut)}
             </button>
           </div>
         </div>
         {open ? (
           <div className="border-t border-sand-200 px-4 py-2 md:hidden">
             <button type="button" className="min-h-11 text-base font-medium text-terracotta-700 underline" onClick={() => void signOut()}>
-              Sign out ({user.displayName})
+              {t(($) => $.signOutAs, { name: user.displayName })}
             </button>
           </div>
         ) : null}
       </header>
       <main id="main" className="mx-auto max-w-6xl px-4 py-6">
-        <UnitsProvider system={user.unitSystem}>
-        {children}
-        </UnitsProvider>
+        <UnitsProvider system={user.unitSystem}>{children}</UnitsProvider>
       </main>
     </div>
   );

@@ -48,7 +48,7 @@ export function AccountSettingsForm({ account }: { account: Account }) {
           <option value="metric">Metric (L, kg, °C)</option>
           <option value="us">US customary (gal, lb, °F)</option>
         </SelectField>
-        <SelectField label="Language" hint="Used for the e-mails Seepwise sends you." {...register('language')} error={errors.language?.message}>
+        <SelectField label="Language" hint="For the screens and for the e-mails Seepwise sends you." {...register('language')} error={errors.language?.message}>
           <option value="en">English</option>
           <option value="es">Español</option>
         </SelectField>

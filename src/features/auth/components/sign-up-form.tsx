@@ -10,6 +10,7 @@ import { InputField, SelectField } from '@/components/ui/field';
 import { paths } from '@/config/paths';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useSignUp } from '../api/auth-mutations';
+import { currentLanguage } from '@/i18n';
 
 type FormValues = z.input<typeof signUpInputSchema>;
 
@@ -18,7 +19,7 @@ export function SignUpForm({ onSuccess }: { onSuccess: () => void }) {
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<FormValues, unknown, z.output<typeof signUpInputSchema>>({
     resolver: zodResolver(signUpInputSchema),
-    defaultValues: { role: 'grower', unitSystem: 'metric', language: 'en' },
+    defaultValues: { role: 'grower', unitSystem: 'metric', language: currentLanguage() },
   });
 
   const onSubmit = handleSubmit(async (values) => {

@@ -1,0 +1,23 @@
+import { useTranslation } from 'react-i18next';
+import { LANGUAGES, currentLanguage, setLanguage, type Language } from './index';
+
+/** The language picker of the public pages (signed in, the account setting decides). */
+export function LanguageSwitch({ className }: { className?: string }) {
+  const { t } = useTranslation();
+  return (
+    <label className={className}>
+      <span className="mr-2 text-sm text-ink-muted">{t(($) => $.language.label)}</span>
+      <select
+        className="min-h-10 rounded-lg border border-sand-300 bg-white px-2 text-sm"
+        value={currentLanguage()}
+        onChange={(e) => void setLanguage(e.target.value as Language)}
+      >
+        {LANGUAGES.map((l) => (
+          <option key={l} value={l} lang={l}>
+            {t(($) => $.language[l])}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
