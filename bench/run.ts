@@ -61,7 +61,7 @@ runBench(options).then(
     const misses = r.table.filter((row) => row.status === 'miss');
     console.log(`\n${r.table.map((row) => `${row.status.padEnd(7)} ${row.id.padEnd(3)} ${row.figure}: ${row.value}`).join('\n')}`);
     if (options.only) console.log(`\n(only ${options.only.join(', ')}; written to ${path.relative(process.cwd(), options.outDir) || '.'})`);
-    console.log(`\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : 'Every target met.'}`);
+    console.log(`\n${misses.length ? `${misses.length} target(s) missed: see ${path.relative(process.cwd(), path.join(options.outDir, 'RESULTS.md'))} and bench/FINDINGS.md.` : 'Every target met.'}`);
     process.exit(0);
   },
   (err: unknown) => {
