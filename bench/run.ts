@@ -8,11 +8,12 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import { defaultOptions, runBench, type BenchOptions, type BenchResults } from './bench';
+import { runAnalysisOnly, type AnalysisOnlyOptions } from './analysis-only';
+import { defaultOptions, runBench, type BenchResults } from './bench';
 import { renderMarkdown, tableRows } from './lib/report';
 
-function parseArgs(argv: string[]): Partial<BenchOptions> {
-  const o: Partial<BenchOptions> = {};
+function parseArgs(argv: string[]): Partial<AnalysisOnlyOptions> & { only?: 'analysis' } {
+  const o: Partial<AnalysisOnlyOptions> & { only?: 'analysis' } = {};
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     const value = () => {
@@ -27,8 +28,15 @@ function parseArgs(argv: string[]): Partial<BenchOptions> {
     else if (a === '--out') o.outDir = path.resolve(value());
     else if (a === '--keep-db') o.keepDatabase = true;
     else if (a === '--pg-port') o.pgPort = Number(value());
+    else if (a === '--only') {
+      if (value() !== 'analysis') throw new Error('--only takes: analysis');
+      o.only = 'analysis';
+    } else if (a === '--reuse-db') o.reuseDatabase = true;
+    else if (a === '--iterations') o.iterations = Number(value());
+    else if (a === '--label') o.label = value();
     else if (a === '--help' || a === '-h') {
       console.log('npm run bench -- [--scale 0.001] [--skip-browser] [--out DIR] [--keep-db] [--pg-port 54349]');
+      console.log('npm run bench -- --only analysis [--keep-db] [--reuse-db] [--iterations 50] [--label TEXT] [--pg-port 54349]');
       process.exit(0);
     } else throw new Error(`Unknown option ${a}`);
   }
@@ -47,16 +55,27 @@ if (renderAt !== -1) {
   process.exit(0);
 }
 
-const options = { ...defaultOptions(), ...parseArgs(process.argv.slice(2)) };
-runBench(options).then(
-  (r) => {
-    const misses = r.table.filter((row) => row.status === 'miss');
-    console.log(`\n${r.table.map((row) => `${row.status.padEnd(7)} ${row.id.padEnd(3)} ${row.figure}: ${row.value}`).join('\n')}`);
-    console.log(`\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : 'Every target met.'}`);
-    process.exit(0);
-  },
-  (err: unknown) => {
-    console.error(err);
-    process.exit(1);
-  },
-);
+const { only, ...parsed } = parseArgs(process.argv.slice(2));
+const options = { ...defaultOptions(), ...parsed };
+if (only === 'analysis') {
+  // Figure 1 alone (bench/analysis-only.ts): writes bench/tmp/analysis-only.json, not the full report.
+  runAnalysisOnly({ reuseDatabase: false, iterations: 50, label: 'analysis-only', ...options }).then(
+    () => process.exit(0),
+    (err: unknown) => {
+      console.error(err);
+      process.exit(1);
+    },
+  );
+} else
+  runBench(options).then(
+    (r) => {
+      const misses = r.table.filter((row) => row.status === 'miss');
+      console.log(`\n${r.table.map((row) => `${row.status.padEnd(7)} ${row.id.padEnd(3)} ${row.figure}: ${row.value}`).join('\n')}`);
+      console.log(`\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : 'Every target met.'}`);
+      process.exit(0);
+    },
+    (err: unknown) => {
+      console.error(err);
+      process.exit(1);
+    },
+  );
