@@ -105,14 +105,12 @@ export async function runAnalysisOnly(o: AnalysisOnlyOptions) {
       await res.arrayBuffer();
     });
     log(`${statements.length} SQL statements per request:\n  ${statements.join('\n  ')}`);
-    const [trialRow] = (await ds.query(analysisQueries.trial, [ids.featuredTrialId])) as { gardenId: string; plantingDate: string; endDate: string }[];
-    const asOf = trialRow!.endDate < today() ? trialRow!.endDate : today();
     const plans = [];
     for (const [name, sql, params] of [
       ['analysis.trial', analysisQueries.trial, [ids.featuredTrialId]],
       ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
       ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
-      ['analysis.weather', analysisQueries.weather, [trialRow!.gardenId, trialRow!.plantingDate, asOf]],
+      ['analysis.weather', analysisQueries.weather, [ids.featuredTrialId, today()]],
       ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
     ] as const) {
       plans.push(await explain(ds, name, sql, [...params]));
