@@ -208,6 +208,14 @@ export function importService(ctx: AppContext) {
           return;
         }
         const value = parsed.data as Row;
+        // PostgreSQL text cannot hold a NUL character; say so instead of failing the whole COPY.
+        for (const f of fields) {
+          const v = value[f];
+          if (typeof v === 'string' && v.includes('\0')) {
+            errors.push({ line, column: f, reason: 'This cell contains a NUL character, which cannot be stored.' });
+            return;
+          }
+        }
         const at = String(value[when]);
         // An instant ending in Z carries its UTC day in its first ten characters; other offsets go through Date.
         const day = at.length > 10 ? (at.endsWith('Z') ? at.slice(0, 10) : new Date(at).toISOString().slice(0, 10)) : at;

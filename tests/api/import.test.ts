@@ -140,6 +140,7 @@ describe('POST /api/trials/:trialId/import', () => {
       null,
       ['A1', 'x'],
       { line: 5, plotLabel: { nested: true }, occurredAt: '2026-06-01T07:00:00Z', kind: 'surface', volumeL: 5 },
+      { line: 6, plotLabel: 'A1', occurredAt: '2026-06-01T07:00:00Z', kind: 'surface', volumeL: 5, notes: 'a\u0000b' },
     ];
     const res = await a.post(`/api/trials/${trial.id}/import`, { kind: 'water-events', rows });
     expect(res.status).toBe(400);
@@ -147,6 +148,7 @@ describe('POST /api/trials/:trialId/import', () => {
       [3, ''],
       [4, ''],
       [5, 'plot'],
+      [6, 'notes'],
     ]);
     expect(await count('water_events', trial.id)).toBe(0);
   });
