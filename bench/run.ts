@@ -64,7 +64,10 @@ runBench(options).then(
   (r) => {
     const misses = r.table.filter((row) => row.status === 'miss');
     console.log(`\n${r.table.map((row) => `${row.status.padEnd(7)} ${row.id.padEnd(3)} ${row.figure}: ${row.value}`).join('\n')}`);
-    console.log(`\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : 'Every target met.'}`);
+    const measured = r.table.filter((row) => row.status !== 'skipped' && row.status !== 'info').length;
+    console.log(
+      `\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : `Every measured target met (${measured}).`}`,
+    );
     process.exit(0);
   },
   (err: unknown) => {

@@ -1,4 +1,4 @@
-import { createHash } from 'node:crypto';
+import { hash } from 'node:crypto';
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type { ImportKind, RowError } from '@shared/import/csv-import';
@@ -107,24 +107,16 @@ const timeField: Record<ImportKind, string> = { 'water-events': 'occurredAt', 'm
  */
 export function importFingerprints(kind: ImportKind, records: Row[]): string[] {
   const keys = sortedFieldsOf[kind];
-  const prefixes = keys.map((k) => `[${JSON.stringify(k)},`);
   const seen = new Map<string, number>();
   const out = new Array<string>(records.length);
   for (let r = 0; r < records.length; r++) {
     const rec = records[r]!;
-    let canonical = '[';
-    let first = true;
-    for (let i = 0; i < keys.length; i++) {
-      const k = keys[i]!;
-      if (!(k in rec)) continue;
-      const v = rec[k];
-      canonical += `${first ? '' : ','}${prefixes[i]!}${v === undefined ? 'null' : JSON.stringify(v)}]`;
-      first = false;
-    }
-    canonical += ']';
+    const pairs: [string, unknown][] = [];
+    for (const k of keys) if (k in rec) pairs.push([k, rec[k]]);
+    const canonical = JSON.stringify(pairs);
     const n = (seen.get(canonical) ?? 0) + 1;
     seen.set(canonical, n);
-    out[r] = `imp_${createHash('sha256').update(`${kind}|${canonical}|${n}`).digest('hex').slice(0, 56)}`;
+    out[r] = `imp_${hash('sha256', `${kind}|${canonical}|${n}`).slice(0, 56)}`;
   }
   return out;
 }
