@@ -7,17 +7,17 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runBench, type BenchResults } from '../../bench/bench';
+import { isSkipped, runBench, type BenchResults } from '../../bench/bench';
 import { createTestDatabase } from '../helpers/test-db';
 
 let db: Awaited<ReturnType<typeof createTestDatabase>>;
 let dir: string;
 let results: BenchResults;
 
-/** The figure itself; fails the test when the run skipped it. */
-function measured<T extends object>(v: T | { skipped: string }): T {
-  if ('skipped' in v) throw new Error(`figure skipped: ${v.skipped}`);
-  return v;
+/** A figure the run measured (every figure is selected here); fails with the skip reason otherwise. */
+function measured<T extends object>(f: T | { skipped: string }): T {
+  if (isSkipped(f)) throw new Error(`figure skipped: ${f.skipped}`);
+  return f;
 }
 
 beforeAll(async () => {
@@ -33,7 +33,7 @@ afterAll(async () => {
 
 describe('npm run bench -- --scale 0.001 --skip-browser', () => {
   it('loads a tiny scenario through the same code as the full one', () => {
-    const { half, full, load } = results.scenario;
+    const { half, full, load } = measured(results.scenario);
     expect(full.trials).toBeGreaterThan(half.trials);
     expect(full.logRows).toBeGreaterThan(half.logRows);
     expect(full.logRows).toBeLessThan(5000);
@@ -45,15 +45,17 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
     for (const size of ['half', 'full'] as const) {
       const f = results.figures[size];
       const analysis = measured(f.analysis);
+      const exported = measured(f.export);
       expect(analysis.routeMs.n).toBeGreaterThan(0);
       expect(analysis.bareSqlMs.n).toBe(analysis.routeMs.n);
       expect(analysis.responseBytes).toBeGreaterThan(0);
       // The cohort results route is measured when this checkout has it, and says why when it does not.
       expect('routeMs' in f.cohort || 'skipped' in f.cohort).toBe(true);
-      expect(measured(f.export).rows).toBeGreaterThan(0);
-      expect(measured(f.export).memory.hwmMb).toBeGreaterThan(0);
+      expect(exported.rows).toBeGreaterThan(0);
+      expect(exported.memory.hwmMb).toBeGreaterThan(0);
     }
-    expect(measured(results.figures.full.export).rows).toBe(results.scenario.full.networkCohortWaterEvents);
+    const scenario = measured(results.scenario);
+    expect(measured(results.figures.full.export).rows).toBe(scenario.full.networkCohortWaterEvents);
     const writes = measured(results.figures.writes);
     expect(writes.api.ok).toBe(writes.api.requests);
     expect(writes.api.rowsWritten).toBe(writes.api.ok);
@@ -61,7 +63,7 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
     const trips = { analysis: measured(results.roundTrips.analysis), write: measured(results.roundTrips.write) };
     expect(trips.analysis.route.length).toBeGreaterThanOrEqual(trips.analysis.bare);
     expect(trips.write.route.some((q) => q.startsWith('INSERT INTO water_events'))).toBe(true);
-    expect(measured(results.figures.import).rows).toBe(results.scenario.plan.importRows);
+    expect(measured(results.figures.import).rows).toBe(scenario.plan.importRows);
     expect(results.figures.client).toEqual({ skipped: 'browser step skipped (--skip-browser)' });
   });
 
@@ -76,35 +78,4 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
     expect(md).toContain('| # | Figure | Value | Spread | Target | Pass/miss | Ratio |');
     expect(md.split('\n').filter((l) => /^\| \d[a-d]? \|/.test(l))).toHaveLength(results.table.length);
   });
-});
-
-describe('npm run bench -- --only import', () => {
-  it('loads the same scenario but measures only the named figure, and says so for the others', async () => {
-    const onlyDir = fs.mkdtempSync(path.join(os.tmpdir(), 'seepwise-bench-only-'));
-    const onlyDb = await createTestDatabase();
-    try {
-      const r = await runBench({
-        scale: 0.001,
-        skipBrowser: true,
-        only: ['import'],
-        databaseUrl: onlyDb.url,
-        outDir: onlyDir,
-        tmpDir: path.join(onlyDir, 'tmp'),
-        log: () => {},
-      });
-      expect(r.command).toBe('npm run bench -- --scale 0.001 --only import --skip-browser');
-      expect(r.scenario.full.logRows).toBeGreaterThan(r.scenario.half.logRows);
-      expect(measured(r.figures.import).rows).toBe(r.scenario.plan.importRows);
-      for (const f of [r.figures.half.analysis, r.figures.full.cohort, r.figures.full.export, r.figures.writes, r.figures.client, r.roundTrips.write]) {
-        expect(f).toEqual({ skipped: 'not measured (--only import)' });
-      }
-      expect(r.diagnostics).toEqual([]);
-      const byId = new Map(r.table.map((row) => [row.id, row]));
-      expect(byId.get('5')?.status).not.toBe('skipped');
-      for (const id of ['1', '2', '3a', '3c', '4a', '6', '7a', '7b', '7c']) expect(byId.get(id)?.status).toBe('skipped');
-    } finally {
-      await onlyDb.drop();
-      fs.rmSync(onlyDir, { recursive: true, force: true });
-    }
-  }, 600_000);
 });
