@@ -16,6 +16,7 @@ import { createLogger } from '../server/lib/logger';
 import { startRuntime, type Runtime } from '../server/runtime';
 import { analysisQueries } from '../server/services/analysis.service';
 import { measureClient, CHROMIUM, type ClientFigure } from './figures/client';
+import { loadCohortResultsRawQueries, measureCohortCache, type CohortCacheFigure } from './figures/cohort-cache';
 import { measureExport, type ExportFigure } from './figures/export';
 import { measureImport, type ImportFigure } from './figures/import';
 import { bareAnalysis, bareCohortResults, compareRouteWithSql, explain, loadCohortResultsQueries, type RouteFigure } from './figures/route-vs-sql';
@@ -28,8 +29,14 @@ import { SessionClient } from './lib/session-client';
 import { BENCH_PASSWORD, benchEmails, loadPhase, planScenario, type LoadStep, type ScenarioIds, type ScenarioPlan } from './lib/scenario';
 import { r3, summarise } from './lib/stats';
 
+/** The figures `--only` can pick (a comma list); the growth figures (7) follow 1–3. */
+export const FIGURE_NAMES = ['analysis', 'cohort', 'export', 'writes', 'import', 'client'] as const;
+export type FigureName = (typeof FIGURE_NAMES)[number];
+
 export interface BenchOptions {
   scale: number;
+  /** Measure only these figures (the scenario is still loaded in full, both halves); null: all. */
+  only: FigureName[] | null;
   skipBrowser: boolean;
   /** Where results.json and RESULTS.md go. */
   outDir: string;
@@ -45,6 +52,7 @@ export interface BenchOptions {
 
 export const defaultOptions = (): BenchOptions => ({
   scale: 1,
+  only: null,
   skipBrowser: false,
   outDir: path.join(REPO_ROOT, 'bench'),
   tmpDir: path.join(REPO_ROOT, 'bench', 'tmp'),
@@ -76,16 +84,18 @@ export interface Skipped {
 }
 
 export interface PhaseFigures {
-  analysis: RouteFigure;
+  analysis: RouteFigure | Skipped;
   cohort: RouteFigure | Skipped;
-  export: ExportFigure;
+  /** Figure 2, continued: the route against its old raw-row SQL, cold and one-trial-changed requests. */
+  cohortCache?: CohortCacheFigure | Skipped;
+  export: ExportFigure | Skipped;
 }
 
 /** The SQL statements one request sends (recorded on the in-process app), against what the bare side sends. */
 export interface RoundTrips {
-  analysis: { route: string[]; bare: number };
+  analysis: { route: string[]; bare: number } | Skipped;
   cohort: { route: string[]; bare: number } | Skipped;
-  write: { route: string[]; bare: number };
+  write: { route: string[]; bare: number } | Skipped;
 }
 
 export interface BenchResults {
@@ -97,13 +107,19 @@ export interface BenchResults {
     plan: ScenarioPlan;
     half: PhaseCounts;
     full: PhaseCounts;
-    load: { phases: { phase: number; seconds: number; steps: (LoadStep & { rowsPerSecond: number })[] }[]; analyzeSeconds: number[]; totalRows: number; totalSeconds: number; rowsPerSecond: number };
+    load: {
+      phases: { phase: number; seconds: number; steps: (LoadStep & { rowsPerSecond: number })[] }[];
+      analyzeSeconds: number[];
+      totalRows: number;
+      totalSeconds: number;
+      rowsPerSecond: number;
+    };
   };
   figures: {
     half: PhaseFigures;
     full: PhaseFigures;
-    writes: WritesFigure;
-    import: ImportFigure;
+    writes: WritesFigure | Skipped;
+    import: ImportFigure | Skipped;
     client: ClientFigure | Skipped;
   };
   roundTrips: RoundTrips;
@@ -133,7 +149,10 @@ async function counts(client: pg.ClientBase, ids: ScenarioIds): Promise<PhaseCou
       [ids.featuredTrialId],
     ),
     bigCohortTrials: await q('SELECT count(*) FROM trial_shares WHERE cohort_id = $1 AND withdrawn_at IS NULL', [ids.bigCohortId]),
-    networkCohortWaterEvents: await q('SELECT count(*) FROM water_events e JOIN trial_shares s ON s.trial_id = e.trial_id WHERE s.cohort_id = $1 AND s.withdrawn_at IS NULL', [ids.networkCohortId]),
+    networkCohortWaterEvents: await q(
+      'SELECT count(*) FROM water_events e JOIN trial_shares s ON s.trial_id = e.trial_id WHERE s.cohort_id = $1 AND s.withdrawn_at IS NULL',
+      [ids.networkCohortId],
+    ),
     databaseMb: r3((await q('SELECT pg_database_size(current_database())')) / 1024 / 1024),
   };
 }
@@ -170,6 +189,8 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
   // Half-size exports are quick, so they get more runs (their medians feed the growth figure).
   const exportReps = { half: o.scale >= 0.1 ? 5 : 1, full: o.scale >= 0.1 ? 3 : 1 };
   const today = () => new Date().toISOString().slice(0, 10);
+  const want = (f: FigureName) => o.only === null || o.only.includes(f);
+  const notWanted = (f: FigureName): Skipped => ({ skipped: `not measured in this run (--only ${o.only?.join(',')}; ${f} left out)` });
 
   let cluster: RunningCluster | null = null;
   let runtime: Runtime | null = null;
@@ -207,7 +228,9 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       ...gitInfo(),
     };
     environment.commitFlushMs = await commitLatency(loader);
-    log(`PostgreSQL ${environment.postgres}, fsync=${environment.fsync}, shared_buffers=${environment.sharedBuffers}, one-row commit ${environment.commitFlushMs} ms; scale ${o.scale}`);
+    log(
+      `PostgreSQL ${environment.postgres}, fsync=${environment.fsync}, shared_buffers=${environment.sharedBuffers}, one-row commit ${environment.commitFlushMs} ms; scale ${o.scale}`,
+    );
 
     // 2. Phase 0: half the scenario.
     const passwordHash = await hashPassword(BENCH_PASSWORD);
@@ -218,7 +241,11 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       const t0 = performance.now();
       await loader!.query('ANALYZE');
       analyzeSeconds.push(r3((performance.now() - t0) / 1000));
-      loads.push({ phase, seconds: r3(r.ms / 1000), steps: r.steps.map((s) => ({ ...s, ms: Math.round(s.ms), rowsPerSecond: Math.round(s.rows / Math.max(s.ms / 1000, 1e-3)) })) });
+      loads.push({
+        phase,
+        seconds: r3(r.ms / 1000),
+        steps: r.steps.map((s) => ({ ...s, ms: Math.round(s.ms), rowsPerSecond: Math.round(s.rows / Math.max(s.ms / 1000, 1e-3)) })),
+      });
       log(`phase ${phase} loaded in ${(r.ms / 1000).toFixed(1)} s; ANALYZE ${analyzeSeconds.at(-1)} s`);
       return r.ids;
     };
@@ -240,20 +267,60 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
     const lead = new SessionClient(server.url);
     const leadUser = await lead.signIn(benchEmails.lead, BENCH_PASSWORD);
 
+    const cohortRawQueries = await loadCohortResultsRawQueries();
     const measureReads = async (label: string) => {
-      log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
-      const analysis = await compareRouteWithSql({ client: grower, path: `/api/trials/${ids.featuredTrialId}/analysis`, bare: bareAnalysis(ds, ids.featuredTrialId, today), iterations, warmup, budgetMs: 30_000, minIterations: Math.min(iterations, 20) });
-      log(`${label}: analysis median ${analysis.routeMs.median} ms (p95 ${analysis.routeMs.p95}), bare SQL ${analysis.bareSqlMs.median} ms, ratio ${r3(analysis.ratio)}`);
+      let analysis: RouteFigure | Skipped = notWanted('analysis');
+      if (want('analysis')) {
+        log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
+        analysis = await compareRouteWithSql({
+          client: grower,
+          path: `/api/trials/${ids.featuredTrialId}/analysis`,
+          bare: bareAnalysis(ds, ids.featuredTrialId, today),
+          iterations,
+          warmup,
+          budgetMs: 30_000,
+          minIterations: Math.min(iterations, 20),
+        });
+        log(
+          `${label}: analysis median ${analysis.routeMs.median} ms (p95 ${analysis.routeMs.p95}), bare SQL ${analysis.bareSqlMs.median} ms, ratio ${r3(analysis.ratio)}`,
+        );
+      }
       let cohort: RouteFigure | Skipped;
-      if (!hasCohortRoute || !cohortQueries) {
-        cohort = { skipped: hasCohortRoute ? 'cohortResultsQueries not found in server/services/cohort-results.service.ts' : 'GET /api/cohorts/:cohortId/results is not in buildRouteSpecs() in this checkout' };
+      let cohortCache: CohortCacheFigure | Skipped = { skipped: 'no raw-row reference queries (cohortResultsRawQueries) in this checkout' };
+      if (!want('cohort')) {
+        cohort = notWanted('cohort');
+        cohortCache = cohort;
+      } else if (!hasCohortRoute || !cohortQueries) {
+        cohort = {
+          skipped: hasCohortRoute
+            ? 'cohortResultsQueries not found in server/services/cohort-results.service.ts'
+            : 'GET /api/cohorts/:cohortId/results is not in buildRouteSpecs() in this checkout',
+        };
         log(`${label}: figure 2 skipped (${cohort.skipped})`);
       } else {
         log(`${label}: figure 2, GET /api/cohorts/:id/results (${plan.bigCohortTrials} trials) ×${iterations} against its bare SQL`);
-        cohort = await compareRouteWithSql({ client: lead, path: `/api/cohorts/${ids.bigCohortId}/results`, bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today), iterations, warmup: Math.min(warmup, 2), budgetMs: 30_000, minIterations: Math.min(iterations, 10) });
-        log(`${label}: cohort results median ${cohort.routeMs.median} ms (p95 ${cohort.routeMs.p95}), bare SQL ${cohort.bareSqlMs.median} ms, ratio ${r3(cohort.ratio)}`);
+        cohort = await compareRouteWithSql({
+          client: lead,
+          path: `/api/cohorts/${ids.bigCohortId}/results`,
+          bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today),
+          iterations,
+          warmup: Math.min(warmup, 2),
+          budgetMs: 30_000,
+          minIterations: Math.min(iterations, 10),
+        });
+        log(
+          `${label}: cohort results median ${cohort.routeMs.median} ms (p95 ${cohort.routeMs.p95}), bare SQL ${cohort.bareSqlMs.median} ms, ratio ${r3(cohort.ratio)}`,
+        );
+        if (cohortRawQueries) {
+          const reps = o.scale >= 0.1 ? { pairs: 6, coldReps: 3, changedReps: 5 } : { pairs: 2, coldReps: 1, changedReps: 1 };
+          log(`${label}: figure 2, route against the raw-row SQL ×${reps.pairs}, cold ×${reps.coldReps}, one trial changed ×${reps.changedReps}`);
+          cohortCache = await measureCohortCache({ ds, client: lead, raw: cohortRawQueries, cohortId: ids.bigCohortId, userId: leadUser.id, today, ...reps });
+          log(
+            `${label}: route ${cohortCache.routeMs.median} ms against raw-row SQL ${cohortCache.rawSqlMs.median} ms (${cohortCache.speedup}× faster); cold ${cohortCache.coldMs.median} ms; one trial changed ${cohortCache.oneChangedMs.median} ms`,
+          );
+        }
       }
-      return { analysis, cohort };
+      return { analysis, cohort, cohortCache };
     };
     const measureExportIn = async (label: 'half' | 'full', child: Awaited<ReturnType<typeof startChildServer>>) => {
       const network = new SessionClient(child.url);
@@ -261,19 +328,23 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       const reps = label === 'half' ? exportReps.half : exportReps.full;
       log(`${label}: figure 3, cohort water-events CSV export ×${reps} against COPY TO STDOUT`);
       const fig = await measureExport({ child, client: network, databaseUrl: databaseUrl!, cohortId: ids.networkCohortId, reps });
-      log(`${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`);
+      log(
+        `${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`,
+      );
       return fig;
     };
     const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
     const bounded = o.scale >= 0.1 ? { durationS: 10, amount: null } : { durationS: null, amount: 40 };
 
     const halfReads = await measureReads('half');
-    const childA = await startChildServer(childEnv);
-    let halfExport: ExportFigure;
-    try {
-      halfExport = await measureExportIn('half', childA);
-    } finally {
-      await childA.stop();
+    let halfExport: ExportFigure | Skipped = notWanted('export');
+    if (want('export')) {
+      const childA = await startChildServer(childEnv);
+      try {
+        halfExport = await measureExportIn('half', childA);
+      } finally {
+        await childA.stop();
+      }
     }
 
     // 3. Phase 1: the other half.
@@ -289,16 +360,31 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       if (res.status >= 300) throw new Error(`round-trip probe: ${res.status}`);
     };
     const roundTrips: RoundTrips = {
-      analysis: { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 },
-      cohort: cohortQueries ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: 4 } : { skipped: 'no cohort results route' },
-      write: {
-        route: await recordQueries(() =>
-          drain(grower.post(`/api/trials/${ids.writeTrialId}/water-events`, { plotId: ids.writePlotIds[0], occurredAt: '2026-11-30T07:00:00Z', kind: 'olla_refill', volumeL: 6 })),
-        ),
-        bare: 1,
-      },
+      analysis: want('analysis')
+        ? { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 }
+        : notWanted('analysis'),
+      cohort:
+        cohortQueries && want('cohort')
+          ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: cohortQueries.stale ? 5 : 4 }
+          : { skipped: 'no cohort results route or not measured' },
+      write: want('writes')
+        ? {
+            route: await recordQueries(() =>
+              drain(
+                grower.post(`/api/trials/${ids.writeTrialId}/water-events`, {
+                  plotId: ids.writePlotIds[0],
+                  occurredAt: '2026-11-30T07:00:00Z',
+                  kind: 'olla_refill',
+                  volumeL: 6,
+                }),
+              ),
+            ),
+            bare: 1,
+          }
+        : notWanted('writes'),
     };
-    log(`round trips per request: analysis ${roundTrips.analysis.route.length}, write ${roundTrips.write.route.length}`);
+    const trips = (t: { route: string[] } | Skipped) => ('route' in t ? t.route.length : '—');
+    log(`round trips per request: analysis ${trips(roundTrips.analysis)}, cohort ${trips(roundTrips.cohort)}, write ${trips(roundTrips.write)}`);
 
     // Query plans at full size, for the diagnostics.
     const plans: Awaited<ReturnType<typeof explain>>[] = [];
@@ -310,9 +396,9 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       ['analysis.weather', analysisQueries.weather, [trialRow!.gardenId, trialRow!.plantingDate, asOf]],
       ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
     ] as const) {
-      plans.push(await explain(ds, name, sql, [...params]));
+      if (want('analysis')) plans.push(await explain(ds, name, sql, [...params]));
     }
-    if (cohortQueries) {
+    if (cohortQueries && want('cohort')) {
       plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
       plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
       plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
@@ -321,27 +407,51 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
     fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));
 
     // 4. The child app at full size: export, then writes, then imports.
-    const childB = await startChildServer(childEnv);
-    let fullExport: ExportFigure;
-    let writes: WritesFigure;
-    let imported: ImportFigure;
+    let fullExport: ExportFigure | Skipped = notWanted('export');
+    let writes: WritesFigure | Skipped = notWanted('writes');
+    let imported: ImportFigure | Skipped = notWanted('import');
+    const childB = want('export') || want('writes') || want('import') ? await startChildServer(childEnv) : null;
     try {
-      fullExport = await measureExportIn('full', childB);
-      const writer = new SessionClient(childB.url);
-      await writer.signIn(benchEmails.grower, BENCH_PASSWORD);
-      log(`figure 4: POST water events with autocannon, 20 connections, ${bounded.durationS ? `${bounded.durationS} s` : `${bounded.amount} requests`}`);
-      writes = await measureWrites({ client: writer, databaseUrl, trialId: ids.writeTrialId, plotIds: ids.writePlotIds, userId: growerUser.id, connections: 20, poolSize: 10, ...bounded });
-      log(`writes: ${writes.api.requestsPerSecond.mean} req/s, p99 ${writes.api.latencyMs.p99} ms, ${writes.api.errors} errors, ${writes.api.non2xx} non-2xx; direct ${writes.direct.rowsPerSecond} rows/s, ratio ${r3(writes.ratio)}`);
-      log(`figure 5: import ${plan.importRows.toLocaleString('en')} CSV rows ×${ids.importTrialIds.length}`);
-      imported = await measureImport({ child: childB, client: writer, trialIds: ids.importTrialIds, plotLabels: ids.importPlotLabels, rows: plan.importRows });
-      log(`import: median ${imported.totalSeconds.median} s (parse ${imported.steps.parse}, normalise ${imported.steps.normalise}, serialise ${imported.steps.serialise}, request ${imported.steps.request})`);
+      if (childB && want('export')) fullExport = await measureExportIn('full', childB);
+      const writer = childB ? new SessionClient(childB.url) : null;
+      if (writer) await writer.signIn(benchEmails.grower, BENCH_PASSWORD);
+      if (childB && writer && want('writes')) {
+        log(`figure 4: POST water events with autocannon, 20 connections, ${bounded.durationS ? `${bounded.durationS} s` : `${bounded.amount} requests`}`);
+        writes = await measureWrites({
+          client: writer,
+          databaseUrl,
+          trialId: ids.writeTrialId,
+          plotIds: ids.writePlotIds,
+          userId: growerUser.id,
+          connections: 20,
+          poolSize: 10,
+          ...bounded,
+        });
+        log(
+          `writes: ${writes.api.requestsPerSecond.mean} req/s, p99 ${writes.api.latencyMs.p99} ms, ${writes.api.errors} errors, ${writes.api.non2xx} non-2xx; direct ${writes.direct.rowsPerSecond} rows/s, ratio ${r3(writes.ratio)}`,
+        );
+      }
+      if (childB && writer && want('import')) {
+        log(`figure 5: import ${plan.importRows.toLocaleString('en')} CSV rows ×${ids.importTrialIds.length}`);
+        imported = await measureImport({
+          child: childB,
+          client: writer,
+          trialIds: ids.importTrialIds,
+          plotLabels: ids.importPlotLabels,
+          rows: plan.importRows,
+        });
+        log(
+          `import: median ${imported.totalSeconds.median} s (parse ${imported.steps.parse}, normalise ${imported.steps.normalise}, serialise ${imported.steps.serialise}, request ${imported.steps.request})`,
+        );
+      }
     } finally {
-      await childB.stop();
+      await childB?.stop();
     }
 
     // 5. The client.
     let client: ClientFigure | Skipped;
-    if (o.skipBrowser) client = { skipped: 'browser step skipped (--skip-browser)' };
+    if (!want('client')) client = notWanted('client');
+    else if (o.skipBrowser) client = { skipped: 'browser step skipped (--skip-browser)' };
     else if (!fs.existsSync(CHROMIUM)) client = { skipped: `Chromium not found at ${CHROMIUM} (apt-get install -y chromium)` };
     else {
       log('figure 6: vite build, then the sign-in page in headless Chromium');
@@ -353,7 +463,7 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
     const totalSeconds = loads.reduce((s, l) => s + l.seconds, 0);
     const results: BenchResults = {
       generatedAt: new Date().toISOString(),
-      command: `npm run bench${o.scale !== 1 ? ` -- --scale ${o.scale}` : ''}${o.skipBrowser ? ' --skip-browser' : ''}`,
+      command: `npm run bench${o.scale !== 1 || o.skipBrowser || o.only ? ' --' : ''}${o.scale !== 1 ? ` --scale ${o.scale}` : ''}${o.skipBrowser ? ' --skip-browser' : ''}${o.only ? ` --only ${o.only.join(',')}` : ''}`,
       durationSeconds: r3((performance.now() - started) / 1000),
       environment,
       scenario: {
@@ -363,8 +473,8 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
         load: { phases: loads, analyzeSeconds, totalRows, totalSeconds: r3(totalSeconds), rowsPerSecond: Math.round(totalRows / totalSeconds) },
       },
       figures: {
-        half: { analysis: halfReads.analysis, cohort: halfReads.cohort, export: halfExport },
-        full: { analysis: fullReads.analysis, cohort: fullReads.cohort, export: fullExport },
+        half: { analysis: halfReads.analysis, cohort: halfReads.cohort, cohortCache: halfReads.cohortCache, export: halfExport },
+        full: { analysis: fullReads.analysis, cohort: fullReads.cohort, cohortCache: fullReads.cohortCache, export: fullExport },
         writes,
         import: imported,
         client,

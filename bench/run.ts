@@ -1,5 +1,5 @@
 /**
- * `npm run bench [-- --scale 0.001] [--skip-browser] [--out DIR] [--keep-db]`
+ * `npm run bench [-- --scale 0.001] [--skip-browser] [--only cohort,analysis] [--out DIR] [--keep-db]`
  * `npm run bench -- --render bench/results.json` rebuilds the table and RESULTS.md from saved measurements.
  *
  * Starts the benchmark's own PostgreSQL (.data/pg-bench on 127.0.0.1:54349), loads the invented
@@ -8,7 +8,7 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import { defaultOptions, runBench, type BenchOptions, type BenchResults } from './bench';
+import { defaultOptions, FIGURE_NAMES, runBench, type BenchOptions, type BenchResults, type FigureName } from './bench';
 import { renderMarkdown, tableRows } from './lib/report';
 
 function parseArgs(argv: string[]): Partial<BenchOptions> {
@@ -27,8 +27,17 @@ function parseArgs(argv: string[]): Partial<BenchOptions> {
     else if (a === '--out') o.outDir = path.resolve(value());
     else if (a === '--keep-db') o.keepDatabase = true;
     else if (a === '--pg-port') o.pgPort = Number(value());
-    else if (a === '--help' || a === '-h') {
-      console.log('npm run bench -- [--scale 0.001] [--skip-browser] [--out DIR] [--keep-db] [--pg-port 54349]');
+    else if (a === '--only') {
+      const names = value()
+        .split(',')
+        .map((x) => x.trim())
+        .filter(Boolean);
+      const unknown = names.filter((x) => !(FIGURE_NAMES as readonly string[]).includes(x));
+      if (names.length === 0 || unknown.length)
+        throw new Error(`--only takes a comma list of ${FIGURE_NAMES.join(', ')}${unknown.length ? ` (not: ${unknown.join(', ')})` : ''}`);
+      o.only = names as FigureName[];
+    } else if (a === '--help' || a === '-h') {
+      console.log(`npm run bench -- [--scale 0.001] [--skip-browser] [--only ${FIGURE_NAMES.join(',')}] [--out DIR] [--keep-db] [--pg-port 54349]`);
       process.exit(0);
     } else throw new Error(`Unknown option ${a}`);
   }
@@ -47,7 +56,10 @@ if (renderAt !== -1) {
   process.exit(0);
 }
 
-const options = { ...defaultOptions(), ...parseArgs(process.argv.slice(2)) };
+const parsed = parseArgs(process.argv.slice(2));
+// A partial run never overwrites the full table: without --out it writes to bench/tmp/only-<figures>/.
+if (parsed.only && !parsed.outDir) parsed.outDir = path.join(defaultOptions().tmpDir, `only-${parsed.only.join('-')}`);
+const options = { ...defaultOptions(), ...parsed };
 runBench(options).then(
   (r) => {
     const misses = r.table.filter((row) => row.status === 'miss');

@@ -174,6 +174,12 @@ const summarisedTrials = `
  * rollups (server/services/log-rollups.ts) instead of the raw logs. Same parameters, same rows.
  */
 export const cohortResultsQueries = {
+  /** Run first: the shared trials whose rollups are missing or older than their logs (recomputed before the four reads). */
+  stale: `
+    WITH ${sharedTrials}
+    SELECT sh.id FROM shared sh JOIN trials t ON t.id = sh.id LEFT JOIN trial_log_summaries ls ON ls.trial_id = sh.id
+     WHERE ls.trial_id IS NULL OR ls.data_version <> t.data_version`,
+
   /** As `cohortResultsRawQueries.trials`; harvest counts and moisture methods from the trial summaries. $2 = caller, $3 = today. */
   trials: `
     WITH ${summarisedTrials},
@@ -313,12 +319,7 @@ async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { coho
 export function cohortResultsService(ctx: AppContext) {
   return {
     async results(cohortId: string, userId: string, query: CohortResultsQuery): Promise<CohortResults> {
-      const stale = (await ctx.ds.query(
-        `WITH ${sharedTrials}
-         SELECT sh.id FROM shared sh JOIN trials t ON t.id = sh.id LEFT JOIN trial_log_summaries ls ON ls.trial_id = sh.id
-          WHERE ls.trial_id IS NULL OR ls.data_version <> t.data_version`,
-        [cohortId],
-      )) as { id: string }[];
+      const stale = (await ctx.ds.query(cohortResultsQueries.stale, [cohortId])) as { id: string }[];
       if (stale.length > 0) await refreshTrialRollups(ctx.ds, stale.map((t) => t.id));
       return cohortResultsFrom(ctx.ds, cohortResultsQueries, { cohortId, userId, today: ctx.now().toISOString().slice(0, 10), query });
     },

@@ -7,7 +7,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runBench, type BenchResults } from '../../bench/bench';
+import { runBench, type BenchResults, type Skipped } from '../../bench/bench';
 import { createTestDatabase } from '../helpers/test-db';
 
 let db: Awaited<ReturnType<typeof createTestDatabase>>;
@@ -25,6 +25,12 @@ afterAll(async () => {
   if (dir) fs.rmSync(dir, { recursive: true, force: true });
 });
 
+/** A figure this run must have measured (a full run skips none but the browser). */
+function measured<T extends object>(v: T | Skipped): T {
+  if ('skipped' in v) throw new Error(`figure skipped: ${v.skipped}`);
+  return v;
+}
+
 describe('npm run bench -- --scale 0.001 --skip-browser', () => {
   it('loads a tiny scenario through the same code as the full one', () => {
     const { half, full, load } = results.scenario;
@@ -38,22 +44,28 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
   it('has every figure at both sizes', () => {
     for (const size of ['half', 'full'] as const) {
       const f = results.figures[size];
-      expect(f.analysis.routeMs.n).toBeGreaterThan(0);
-      expect(f.analysis.bareSqlMs.n).toBe(f.analysis.routeMs.n);
-      expect(f.analysis.responseBytes).toBeGreaterThan(0);
+      const analysis = measured(f.analysis);
+      expect(analysis.routeMs.n).toBeGreaterThan(0);
+      expect(analysis.bareSqlMs.n).toBe(analysis.routeMs.n);
+      expect(analysis.responseBytes).toBeGreaterThan(0);
       // The cohort results route is measured when this checkout has it, and says why when it does not.
       expect('routeMs' in f.cohort || 'skipped' in f.cohort).toBe(true);
-      expect(f.export.rows).toBeGreaterThan(0);
-      expect(f.export.memory.hwmMb).toBeGreaterThan(0);
+      // With the log rollups: the route against its old raw-row SQL, cold and one-trial-changed requests.
+      const cache = measured(f.cohortCache ?? { skipped: 'absent' });
+      expect([cache.routeMs.n, cache.rawSqlMs.n, cache.coldMs.n, cache.oneChangedMs.n].every((k) => k > 0)).toBe(true);
+      const exp = measured(f.export);
+      expect(exp.rows).toBeGreaterThan(0);
+      expect(exp.memory.hwmMb).toBeGreaterThan(0);
     }
-    expect(results.figures.full.export.rows).toBe(results.scenario.full.networkCohortWaterEvents);
-    const { writes } = results.figures;
+    expect(measured(results.figures.full.export).rows).toBe(results.scenario.full.networkCohortWaterEvents);
+    const writes = measured(results.figures.writes);
     expect(writes.api.ok).toBe(writes.api.requests);
     expect(writes.api.rowsWritten).toBe(writes.api.ok);
     expect(writes.direct.rows).toBe(writes.api.ok);
-    expect(results.roundTrips.analysis.route.length).toBeGreaterThanOrEqual(results.roundTrips.analysis.bare);
-    expect(results.roundTrips.write.route.some((q) => q.startsWith('INSERT INTO water_events'))).toBe(true);
-    expect(results.figures.import.rows).toBe(results.scenario.plan.importRows);
+    const analysisTrips = measured(results.roundTrips.analysis);
+    expect(analysisTrips.route.length).toBeGreaterThanOrEqual(analysisTrips.bare);
+    expect(measured(results.roundTrips.write).route.some((q) => q.startsWith('INSERT INTO water_events'))).toBe(true);
+    expect(measured(results.figures.import).rows).toBe(results.scenario.plan.importRows);
     expect(results.figures.client).toEqual({ skipped: 'browser step skipped (--skip-browser)' });
   });
 
@@ -61,7 +73,7 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
     const written = JSON.parse(fs.readFileSync(path.join(dir, 'results.json'), 'utf8')) as BenchResults;
     expect(written.table).toEqual(results.table);
     const ids = results.table.map((r) => r.id);
-    for (const id of ['0', '1a', '1b', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '7a', '7b', '7c', '7d']) expect(ids).toContain(id);
+    for (const id of ['0', '1a', '1b', '2c', '2d', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '7a', '7b', '7c', '7d']) expect(ids).toContain(id);
     expect(ids.some((id) => id.startsWith('2'))).toBe(true);
     for (const row of results.table) expect(['pass', 'miss', 'info', 'skipped']).toContain(row.status);
     const md = fs.readFileSync(path.join(dir, 'RESULTS.md'), 'utf8');
