@@ -64,7 +64,9 @@ runBench(options).then(
   (r) => {
     const misses = r.table.filter((row) => row.status === 'miss');
     console.log(`\n${r.table.map((row) => `${row.status.padEnd(7)} ${row.id.padEnd(3)} ${row.figure}: ${row.value}`).join('\n')}`);
-    console.log(`\n${misses.length ? `${misses.length} target(s) missed: see bench/RESULTS.md and bench/FINDINGS.md.` : 'Every target met.'}`);
+    console.log(
+      `\n${misses.length ? `${misses.length} target(s) missed: see ${path.relative(process.cwd(), path.join(options.outDir, 'RESULTS.md'))} and bench/FINDINGS.md.` : 'Every target met.'}`,
+    );
     process.exit(0);
   },
   (err: unknown) => {
