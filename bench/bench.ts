@@ -29,15 +29,17 @@ import { SessionClient } from './lib/session-client';
 import { BENCH_PASSWORD, benchEmails, loadPhase, planScenario, type LoadStep, type ScenarioIds, type ScenarioPlan } from './lib/scenario';
 import { r3, summarise } from './lib/stats';
 
-/** The figures `--only` can pick (a comma list); the growth figures (7) follow 1–3. */
+/** The figures `--only` can select; figure 7 (growth) follows from analysis, cohort and export. */
 export const FIGURE_NAMES = ['analysis', 'cohort', 'export', 'writes', 'import', 'client'] as const;
 export type FigureName = (typeof FIGURE_NAMES)[number];
+/** The figures that need the invented scenario in the database (all but the client). */
+const SCENARIO_FIGURES: readonly FigureName[] = ['analysis', 'cohort', 'export', 'writes', 'import'];
 
 export interface BenchOptions {
   scale: number;
-  /** Measure only these figures (the scenario is still loaded in full, both halves); null: all. */
-  only: FigureName[] | null;
   skipBrowser: boolean;
+  /** Measure only these figures (the others are reported as skipped); the scenario is loaded only when one of them needs it. */
+  only?: FigureName[];
   /** Where results.json and RESULTS.md go. */
   outDir: string;
   /** Scratch space (built client, Chromium profile, S3 fake, query plans); git-ignored. */
@@ -52,7 +54,6 @@ export interface BenchOptions {
 
 export const defaultOptions = (): BenchOptions => ({
   scale: 1,
-  only: null,
   skipBrowser: false,
   outDir: path.join(REPO_ROOT, 'bench'),
   tmpDir: path.join(REPO_ROOT, 'bench', 'tmp'),
@@ -98,23 +99,27 @@ export interface RoundTrips {
   write: { route: string[]; bare: number } | Skipped;
 }
 
+export interface ScenarioSummary {
+  plan: ScenarioPlan;
+  half: PhaseCounts;
+  full: PhaseCounts;
+  load: { phases: { phase: number; seconds: number; steps: (LoadStep & { rowsPerSecond: number })[] }[]; analyzeSeconds: number[]; totalRows: number; totalSeconds: number; rowsPerSecond: number };
+}
+
+export const isSkipped = (v: unknown): v is Skipped => typeof v === 'object' && v !== null && 'skipped' in v;
+
+/** The command line that reproduces a run with these options. */
+export function benchCommand(o: Pick<BenchOptions, 'scale' | 'skipBrowser' | 'only'>): string {
+  const args = [o.scale !== 1 ? `--scale ${o.scale}` : '', o.skipBrowser ? '--skip-browser' : '', o.only ? `--only ${o.only.join(',')}` : ''].filter(Boolean);
+  return `npm run bench${args.length ? ` -- ${args.join(' ')}` : ''}`;
+}
+
 export interface BenchResults {
   generatedAt: string;
   command: string;
   durationSeconds: number;
   environment: Record<string, string | number | boolean>;
-  scenario: {
-    plan: ScenarioPlan;
-    half: PhaseCounts;
-    full: PhaseCounts;
-    load: {
-      phases: { phase: number; seconds: number; steps: (LoadStep & { rowsPerSecond: number })[] }[];
-      analyzeSeconds: number[];
-      totalRows: number;
-      totalSeconds: number;
-      rowsPerSecond: number;
-    };
-  };
+  scenario: ScenarioSummary | Skipped;
   figures: {
     half: PhaseFigures;
     full: PhaseFigures;
@@ -149,10 +154,7 @@ async function counts(client: pg.ClientBase, ids: ScenarioIds): Promise<PhaseCou
       [ids.featuredTrialId],
     ),
     bigCohortTrials: await q('SELECT count(*) FROM trial_shares WHERE cohort_id = $1 AND withdrawn_at IS NULL', [ids.bigCohortId]),
-    networkCohortWaterEvents: await q(
-      'SELECT count(*) FROM water_events e JOIN trial_shares s ON s.trial_id = e.trial_id WHERE s.cohort_id = $1 AND s.withdrawn_at IS NULL',
-      [ids.networkCohortId],
-    ),
+    networkCohortWaterEvents: await q('SELECT count(*) FROM water_events e JOIN trial_shares s ON s.trial_id = e.trial_id WHERE s.cohort_id = $1 AND s.withdrawn_at IS NULL', [ids.networkCohortId]),
     databaseMb: r3((await q('SELECT pg_database_size(current_database())')) / 1024 / 1024),
   };
 }
@@ -189,8 +191,9 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
   // Half-size exports are quick, so they get more runs (their medians feed the growth figure).
   const exportReps = { half: o.scale >= 0.1 ? 5 : 1, full: o.scale >= 0.1 ? 3 : 1 };
   const today = () => new Date().toISOString().slice(0, 10);
-  const want = (f: FigureName) => o.only === null || o.only.includes(f);
-  const notWanted = (f: FigureName): Skipped => ({ skipped: `not measured in this run (--only ${o.only?.join(',')}; ${f} left out)` });
+  const want = (f: FigureName) => !o.only || o.only.includes(f);
+  const notSelected: Skipped = { skipped: `not selected (--only ${o.only?.join(',')})` };
+  const needsScenario = SCENARIO_FIGURES.some(want);
 
   let cluster: RunningCluster | null = null;
   let runtime: Runtime | null = null;
@@ -228,229 +231,183 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       ...gitInfo(),
     };
     environment.commitFlushMs = await commitLatency(loader);
-    log(
-      `PostgreSQL ${environment.postgres}, fsync=${environment.fsync}, shared_buffers=${environment.sharedBuffers}, one-row commit ${environment.commitFlushMs} ms; scale ${o.scale}`,
-    );
+    log(`PostgreSQL ${environment.postgres}, fsync=${environment.fsync}, shared_buffers=${environment.sharedBuffers}, one-row commit ${environment.commitFlushMs} ms; scale ${o.scale}`);
 
-    // 2. Phase 0: half the scenario.
-    const passwordHash = await hashPassword(BENCH_PASSWORD);
-    const loads: BenchResults['scenario']['load']['phases'] = [];
+    // 2. Phase 0: half the scenario (unless no selected figure needs it).
+    const passwordHash = needsScenario ? await hashPassword(BENCH_PASSWORD) : '';
+    const loads: ScenarioSummary['load']['phases'] = [];
     const analyzeSeconds: number[] = [];
     const load = async (phase: number) => {
       const r = await loadPhase(loader!, plan, phase, passwordHash, log);
       const t0 = performance.now();
       await loader!.query('ANALYZE');
       analyzeSeconds.push(r3((performance.now() - t0) / 1000));
-      loads.push({
-        phase,
-        seconds: r3(r.ms / 1000),
-        steps: r.steps.map((s) => ({ ...s, ms: Math.round(s.ms), rowsPerSecond: Math.round(s.rows / Math.max(s.ms / 1000, 1e-3)) })),
-      });
+      loads.push({ phase, seconds: r3(r.ms / 1000), steps: r.steps.map((s) => ({ ...s, ms: Math.round(s.ms), rowsPerSecond: Math.round(s.rows / Math.max(s.ms / 1000, 1e-3)) })) });
       log(`phase ${phase} loaded in ${(r.ms / 1000).toFixed(1)} s; ANALYZE ${analyzeSeconds.at(-1)} s`);
       return r.ids;
     };
-    const ids = await load(0);
-    const half = await counts(loader, ids);
-    log(`half scenario: ${half.trials} trials, ${half.cohorts} cohorts, ${half.logRows.toLocaleString('en')} log rows`);
 
-    // The in-process app (figures 1 and 2 share its pool with the bare SQL).
-    const app = buildBenchApp({ dataSource: ds, databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint });
-    const server = await listenLoopback(app);
-    cleanups.push(async () => {
-      await server.close();
-      await (app.locals.closeExtras as () => Promise<void>)();
-    });
-    const hasCohortRoute = (app.locals.routeSpecs as RouteSpec[]).some((s) => s.method === 'get' && s.path === '/cohorts/:cohortId/results');
-    const cohortQueries = hasCohortRoute ? await loadCohortResultsQueries() : null;
-    const grower = new SessionClient(server.url);
-    const growerUser = await grower.signIn(benchEmails.grower, BENCH_PASSWORD);
-    const lead = new SessionClient(server.url);
-    const leadUser = await lead.signIn(benchEmails.lead, BENCH_PASSWORD);
+    let scenario: ScenarioSummary | Skipped = { skipped: 'no selected figure needs the scenario' };
+    let halfFigures: PhaseFigures = { analysis: notSelected, cohort: notSelected, export: notSelected };
+    let fullFigures: PhaseFigures = { analysis: notSelected, cohort: notSelected, export: notSelected };
+    let writes: WritesFigure | Skipped = notSelected;
+    let imported: ImportFigure | Skipped = notSelected;
+    let roundTrips: RoundTrips = { analysis: notSelected, cohort: notSelected, write: notSelected };
+    const plans: Awaited<ReturnType<typeof explain>>[] = [];
 
-    const cohortRawQueries = await loadCohortResultsRawQueries();
-    const measureReads = async (label: string) => {
-      let analysis: RouteFigure | Skipped = notWanted('analysis');
-      if (want('analysis')) {
-        log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
-        analysis = await compareRouteWithSql({
-          client: grower,
-          path: `/api/trials/${ids.featuredTrialId}/analysis`,
-          bare: bareAnalysis(ds, ids.featuredTrialId, today),
-          iterations,
-          warmup,
-          budgetMs: 30_000,
-          minIterations: Math.min(iterations, 20),
-        });
-        log(
-          `${label}: analysis median ${analysis.routeMs.median} ms (p95 ${analysis.routeMs.p95}), bare SQL ${analysis.bareSqlMs.median} ms, ratio ${r3(analysis.ratio)}`,
-        );
-      }
-      let cohort: RouteFigure | Skipped;
-      let cohortCache: CohortCacheFigure | Skipped = { skipped: 'no raw-row reference queries (cohortResultsRawQueries) in this checkout' };
-      if (!want('cohort')) {
-        cohort = notWanted('cohort');
-        cohortCache = cohort;
-      } else if (!hasCohortRoute || !cohortQueries) {
-        cohort = {
-          skipped: hasCohortRoute
-            ? 'cohortResultsQueries not found in server/services/cohort-results.service.ts'
-            : 'GET /api/cohorts/:cohortId/results is not in buildRouteSpecs() in this checkout',
-        };
-        log(`${label}: figure 2 skipped (${cohort.skipped})`);
-      } else {
-        log(`${label}: figure 2, GET /api/cohorts/:id/results (${plan.bigCohortTrials} trials) ×${iterations} against its bare SQL`);
-        cohort = await compareRouteWithSql({
-          client: lead,
-          path: `/api/cohorts/${ids.bigCohortId}/results`,
-          bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today),
-          iterations,
-          warmup: Math.min(warmup, 2),
-          budgetMs: 30_000,
-          minIterations: Math.min(iterations, 10),
-        });
-        log(
-          `${label}: cohort results median ${cohort.routeMs.median} ms (p95 ${cohort.routeMs.p95}), bare SQL ${cohort.bareSqlMs.median} ms, ratio ${r3(cohort.ratio)}`,
-        );
-        if (cohortRawQueries) {
-          const reps = o.scale >= 0.1 ? { pairs: 6, coldReps: 3, changedReps: 5 } : { pairs: 2, coldReps: 1, changedReps: 1 };
-          log(`${label}: figure 2, route against the raw-row SQL ×${reps.pairs}, cold ×${reps.coldReps}, one trial changed ×${reps.changedReps}`);
-          cohortCache = await measureCohortCache({ ds, client: lead, raw: cohortRawQueries, cohortId: ids.bigCohortId, userId: leadUser.id, today, ...reps });
-          log(
-            `${label}: route ${cohortCache.routeMs.median} ms against raw-row SQL ${cohortCache.rawSqlMs.median} ms (${cohortCache.speedup}× faster); cold ${cohortCache.coldMs.median} ms; one trial changed ${cohortCache.oneChangedMs.median} ms`,
-          );
+    if (needsScenario) {
+      const ids = await load(0);
+      const half = await counts(loader, ids);
+      log(`half scenario: ${half.trials} trials, ${half.cohorts} cohorts, ${half.logRows.toLocaleString('en')} log rows`);
+
+      // The in-process app (figures 1 and 2 share its pool with the bare SQL).
+      const app = buildBenchApp({ dataSource: ds, databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint });
+      const server = await listenLoopback(app);
+      cleanups.push(async () => {
+        await server.close();
+        await (app.locals.closeExtras as () => Promise<void>)();
+      });
+      const hasCohortRoute = (app.locals.routeSpecs as RouteSpec[]).some((s) => s.method === 'get' && s.path === '/cohorts/:cohortId/results');
+      const cohortQueries = hasCohortRoute && want('cohort') ? await loadCohortResultsQueries() : null;
+      const grower = new SessionClient(server.url);
+      const growerUser = await grower.signIn(benchEmails.grower, BENCH_PASSWORD);
+      const lead = new SessionClient(server.url);
+      const leadUser = await lead.signIn(benchEmails.lead, BENCH_PASSWORD);
+
+      const cohortRawQueries = cohortQueries ? await loadCohortResultsRawQueries() : null;
+      const measureReads = async (label: string) => {
+        let analysis: RouteFigure | Skipped = notSelected;
+        if (want('analysis')) {
+          log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
+          const a = await compareRouteWithSql({ client: grower, path: `/api/trials/${ids.featuredTrialId}/analysis`, bare: bareAnalysis(ds, ids.featuredTrialId, today), iterations, warmup, budgetMs: 30_000, minIterations: Math.min(iterations, 20) });
+          log(`${label}: analysis median ${a.routeMs.median} ms (p95 ${a.routeMs.p95}), bare SQL ${a.bareSqlMs.median} ms, ratio ${r3(a.ratio)}`);
+          analysis = a;
+        }
+        let cohort: RouteFigure | Skipped = notSelected;
+        if (!want('cohort')) cohort = notSelected;
+        else if (!hasCohortRoute || !cohortQueries) {
+          cohort = { skipped: hasCohortRoute ? 'cohortResultsQueries not found in server/services/cohort-results.service.ts' : 'GET /api/cohorts/:cohortId/results is not in buildRouteSpecs() in this checkout' };
+          log(`${label}: figure 2 skipped (${cohort.skipped})`);
+        } else {
+          log(`${label}: figure 2, GET /api/cohorts/:id/results (${plan.bigCohortTrials} trials) ×${iterations} against its bare SQL`);
+          const c = await compareRouteWithSql({ client: lead, path: `/api/cohorts/${ids.bigCohortId}/results`, bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today), iterations, warmup: Math.min(warmup, 2), budgetMs: 30_000, minIterations: Math.min(iterations, 10) });
+          log(`${label}: cohort results median ${c.routeMs.median} ms (p95 ${c.routeMs.p95}), bare SQL ${c.bareSqlMs.median} ms, ratio ${r3(c.ratio)}`);
+          cohort = c;
+          if (cohortRawQueries) {
+            const reps = o.scale >= 0.1 ? { pairs: 6, coldReps: 3, changedReps: 5 } : { pairs: 2, coldReps: 1, changedReps: 1 };
+            log(`${label}: figure 2, route against the raw-row SQL ×${reps.pairs}, cold ×${reps.coldReps}, one trial changed ×${reps.changedReps}`);
+            const cache = await measureCohortCache({ ds, client: lead, raw: cohortRawQueries, cohortId: ids.bigCohortId, userId: leadUser.id, today, ...reps });
+            log(`${label}: route ${cache.routeMs.median} ms against raw-row SQL ${cache.rawSqlMs.median} ms (${cache.speedup}× faster); cold ${cache.coldMs.median} ms; one trial changed ${cache.oneChangedMs.median} ms`);
+            return { analysis, cohort, cohortCache: cache };
+          }
+        }
+        return { analysis, cohort };
+      };
+      const measureExportIn = async (label: 'half' | 'full', child: Awaited<ReturnType<typeof startChildServer>>) => {
+        const network = new SessionClient(child.url);
+        await network.signIn(benchEmails.network, BENCH_PASSWORD);
+        const reps = label === 'half' ? exportReps.half : exportReps.full;
+        log(`${label}: figure 3, cohort water-events CSV export ×${reps} against COPY TO STDOUT`);
+        const fig = await measureExport({ child, client: network, databaseUrl: databaseUrl!, cohortId: ids.networkCohortId, reps });
+        log(`${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`);
+        return fig;
+      };
+      const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
+      const bounded = o.scale >= 0.1 ? { durationS: 10, amount: null } : { durationS: null, amount: 40 };
+
+      const halfReads = await measureReads('half');
+      let halfExport: ExportFigure | Skipped = notSelected;
+      if (want('export')) {
+        const childA = await startChildServer(childEnv);
+        try {
+          halfExport = await measureExportIn('half', childA);
+        } finally {
+          await childA.stop();
         }
       }
-      return { analysis, cohort, cohortCache };
-    };
-    const measureExportIn = async (label: 'half' | 'full', child: Awaited<ReturnType<typeof startChildServer>>) => {
-      const network = new SessionClient(child.url);
-      await network.signIn(benchEmails.network, BENCH_PASSWORD);
-      const reps = label === 'half' ? exportReps.half : exportReps.full;
-      log(`${label}: figure 3, cohort water-events CSV export ×${reps} against COPY TO STDOUT`);
-      const fig = await measureExport({ child, client: network, databaseUrl: databaseUrl!, cohortId: ids.networkCohortId, reps });
-      log(
-        `${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`,
-      );
-      return fig;
-    };
-    const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
-    const bounded = o.scale >= 0.1 ? { durationS: 10, amount: null } : { durationS: null, amount: 40 };
+      halfFigures = { analysis: halfReads.analysis, cohort: halfReads.cohort, cohortCache: halfReads.cohortCache, export: halfExport };
 
-    const halfReads = await measureReads('half');
-    let halfExport: ExportFigure | Skipped = notWanted('export');
-    if (want('export')) {
-      const childA = await startChildServer(childEnv);
-      try {
-        halfExport = await measureExportIn('half', childA);
-      } finally {
-        await childA.stop();
-      }
-    }
+      // 3. Phase 1: the other half.
+      await load(1);
+      const full = await counts(loader, ids);
+      log(`full scenario: ${full.trials} trials, ${full.cohorts} cohorts, ${full.logRows.toLocaleString('en')} log rows`);
+      const fullReads = await measureReads('full');
 
-    // 3. Phase 1: the other half.
-    await load(1);
-    const full = await counts(loader, ids);
-    log(`full scenario: ${full.trials} trials, ${full.cohorts} cohorts, ${full.logRows.toLocaleString('en')} log rows`);
-    const fullReads = await measureReads('full');
-
-    // Round trips per request, recorded once on the in-process app.
-    const drain = async (r: Promise<Response>) => {
-      const res = await r;
-      await res.arrayBuffer();
-      if (res.status >= 300) throw new Error(`round-trip probe: ${res.status}`);
-    };
-    const roundTrips: RoundTrips = {
-      analysis: want('analysis')
-        ? { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 }
-        : notWanted('analysis'),
-      cohort:
-        cohortQueries && want('cohort')
-          ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: cohortQueries.stale ? 5 : 4 }
-          : { skipped: 'no cohort results route or not measured' },
-      write: want('writes')
-        ? {
-            route: await recordQueries(() =>
-              drain(
-                grower.post(`/api/trials/${ids.writeTrialId}/water-events`, {
-                  plotId: ids.writePlotIds[0],
-                  occurredAt: '2026-11-30T07:00:00Z',
-                  kind: 'olla_refill',
-                  volumeL: 6,
-                }),
+      // Round trips per request, recorded once on the in-process app.
+      const drain = async (r: Promise<Response>) => {
+        const res = await r;
+        await res.arrayBuffer();
+        if (res.status >= 300) throw new Error(`round-trip probe: ${res.status}`);
+      };
+      roundTrips = {
+        analysis: want('analysis') ? { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 } : notSelected,
+        cohort: cohortQueries ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: cohortQueries.stale ? 5 : 4 } : want('cohort') ? { skipped: 'no cohort results route' } : notSelected,
+        write: want('writes')
+          ? {
+              route: await recordQueries(() =>
+                drain(grower.post(`/api/trials/${ids.writeTrialId}/water-events`, { plotId: ids.writePlotIds[0], occurredAt: '2026-11-30T07:00:00Z', kind: 'olla_refill', volumeL: 6 })),
               ),
-            ),
-            bare: 1,
+              bare: 1,
+            }
+          : notSelected,
+      };
+      log(`round trips per request: ${Object.entries(roundTrips).filter(([, t]) => !isSkipped(t)).map(([k, t]) => `${k} ${(t as { route: string[] }).route.length}`).join(', ') || 'none selected'}`);
+
+      // Query plans at full size, for the diagnostics.
+      if (want('analysis')) {
+        const [trialRow] = (await ds.query(analysisQueries.trial, [ids.featuredTrialId])) as { gardenId: string; plantingDate: string; endDate: string }[];
+        const asOf = trialRow!.endDate < today() ? trialRow!.endDate : today();
+        for (const [name, sql, params] of [
+          ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
+          ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
+          ['analysis.weather', analysisQueries.weather, [trialRow!.gardenId, trialRow!.plantingDate, asOf]],
+          ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
+        ] as const) {
+          plans.push(await explain(ds, name, sql, [...params]));
+        }
+      }
+      if (cohortQueries) {
+        plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
+        plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
+        plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
+        plans.push(await explain(ds, 'cohort.progress', cohortQueries.progress, [ids.bigCohortId]));
+      }
+      if (plans.length) fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));
+
+      // 4. The child app at full size: export, then writes, then imports.
+      let fullExport: ExportFigure | Skipped = notSelected;
+      if (want('export') || want('writes') || want('import')) {
+        const childB = await startChildServer(childEnv);
+        try {
+          if (want('export')) fullExport = await measureExportIn('full', childB);
+          const writer = new SessionClient(childB.url);
+          await writer.signIn(benchEmails.grower, BENCH_PASSWORD);
+          if (want('writes')) {
+            log(`figure 4: POST water events with autocannon, 20 connections, ${bounded.durationS ? `${bounded.durationS} s` : `${bounded.amount} requests`}`);
+            const w = await measureWrites({ client: writer, databaseUrl, trialId: ids.writeTrialId, plotIds: ids.writePlotIds, userId: growerUser.id, connections: 20, poolSize: 10, ...bounded });
+            log(`writes: ${w.api.requestsPerSecond.mean} req/s, p99 ${w.api.latencyMs.p99} ms, ${w.api.errors} errors, ${w.api.non2xx} non-2xx; direct ${w.direct.rowsPerSecond} rows/s, ratio ${r3(w.ratio)}`);
+            writes = w;
           }
-        : notWanted('writes'),
-    };
-    const trips = (t: { route: string[] } | Skipped) => ('route' in t ? t.route.length : '—');
-    log(`round trips per request: analysis ${trips(roundTrips.analysis)}, cohort ${trips(roundTrips.cohort)}, write ${trips(roundTrips.write)}`);
-
-    // Query plans at full size, for the diagnostics.
-    const plans: Awaited<ReturnType<typeof explain>>[] = [];
-    const [trialRow] = (await ds.query(analysisQueries.trial, [ids.featuredTrialId])) as { gardenId: string; plantingDate: string; endDate: string }[];
-    const asOf = trialRow!.endDate < today() ? trialRow!.endDate : today();
-    for (const [name, sql, params] of [
-      ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
-      ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
-      ['analysis.weather', analysisQueries.weather, [trialRow!.gardenId, trialRow!.plantingDate, asOf]],
-      ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
-    ] as const) {
-      if (want('analysis')) plans.push(await explain(ds, name, sql, [...params]));
-    }
-    if (cohortQueries && want('cohort')) {
-      plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
-      plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
-      plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
-      plans.push(await explain(ds, 'cohort.progress', cohortQueries.progress, [ids.bigCohortId]));
-    }
-    fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));
-
-    // 4. The child app at full size: export, then writes, then imports.
-    let fullExport: ExportFigure | Skipped = notWanted('export');
-    let writes: WritesFigure | Skipped = notWanted('writes');
-    let imported: ImportFigure | Skipped = notWanted('import');
-    const childB = want('export') || want('writes') || want('import') ? await startChildServer(childEnv) : null;
-    try {
-      if (childB && want('export')) fullExport = await measureExportIn('full', childB);
-      const writer = childB ? new SessionClient(childB.url) : null;
-      if (writer) await writer.signIn(benchEmails.grower, BENCH_PASSWORD);
-      if (childB && writer && want('writes')) {
-        log(`figure 4: POST water events with autocannon, 20 connections, ${bounded.durationS ? `${bounded.durationS} s` : `${bounded.amount} requests`}`);
-        writes = await measureWrites({
-          client: writer,
-          databaseUrl,
-          trialId: ids.writeTrialId,
-          plotIds: ids.writePlotIds,
-          userId: growerUser.id,
-          connections: 20,
-          poolSize: 10,
-          ...bounded,
-        });
-        log(
-          `writes: ${writes.api.requestsPerSecond.mean} req/s, p99 ${writes.api.latencyMs.p99} ms, ${writes.api.errors} errors, ${writes.api.non2xx} non-2xx; direct ${writes.direct.rowsPerSecond} rows/s, ratio ${r3(writes.ratio)}`,
-        );
+          if (want('import')) {
+            log(`figure 5: import ${plan.importRows.toLocaleString('en')} CSV rows ×${ids.importTrialIds.length}`);
+            const imp = await measureImport({ child: childB, client: writer, trialIds: ids.importTrialIds, plotLabels: ids.importPlotLabels, rows: plan.importRows });
+            log(`import: median ${imp.totalSeconds.median} s (parse ${imp.steps.parse}, normalise ${imp.steps.normalise}, serialise ${imp.steps.serialise}, request ${imp.steps.request})`);
+            imported = imp;
+          }
+        } finally {
+          await childB.stop();
+        }
       }
-      if (childB && writer && want('import')) {
-        log(`figure 5: import ${plan.importRows.toLocaleString('en')} CSV rows ×${ids.importTrialIds.length}`);
-        imported = await measureImport({
-          child: childB,
-          client: writer,
-          trialIds: ids.importTrialIds,
-          plotLabels: ids.importPlotLabels,
-          rows: plan.importRows,
-        });
-        log(
-          `import: median ${imported.totalSeconds.median} s (parse ${imported.steps.parse}, normalise ${imported.steps.normalise}, serialise ${imported.steps.serialise}, request ${imported.steps.request})`,
-        );
-      }
-    } finally {
-      await childB?.stop();
+      fullFigures = { analysis: fullReads.analysis, cohort: fullReads.cohort, cohortCache: fullReads.cohortCache, export: fullExport };
+
+      const totalRows = loads.flatMap((l) => l.steps).reduce((s, x) => s + x.rows, 0);
+      const totalSeconds = loads.reduce((s, l) => s + l.seconds, 0);
+      scenario = { plan, half, full, load: { phases: loads, analyzeSeconds, totalRows, totalSeconds: r3(totalSeconds), rowsPerSecond: Math.round(totalRows / totalSeconds) } };
     }
 
     // 5. The client.
     let client: ClientFigure | Skipped;
-    if (!want('client')) client = notWanted('client');
+    if (!want('client')) client = notSelected;
     else if (o.skipBrowser) client = { skipped: 'browser step skipped (--skip-browser)' };
     else if (!fs.existsSync(CHROMIUM)) client = { skipped: `Chromium not found at ${CHROMIUM} (apt-get install -y chromium)` };
     else {
@@ -459,26 +416,13 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       log(`client: ${client.jsCssGzipKb} KB JS+CSS gzipped (${client.jsCssTransferKb} KB sent), LCP median ${client.lcpMs.median} ms`);
     }
 
-    const totalRows = loads.flatMap((l) => l.steps).reduce((s, x) => s + x.rows, 0);
-    const totalSeconds = loads.reduce((s, l) => s + l.seconds, 0);
     const results: BenchResults = {
       generatedAt: new Date().toISOString(),
-      command: `npm run bench${o.scale !== 1 || o.skipBrowser || o.only ? ' --' : ''}${o.scale !== 1 ? ` --scale ${o.scale}` : ''}${o.skipBrowser ? ' --skip-browser' : ''}${o.only ? ` --only ${o.only.join(',')}` : ''}`,
+      command: benchCommand(o),
       durationSeconds: r3((performance.now() - started) / 1000),
       environment,
-      scenario: {
-        plan,
-        half,
-        full,
-        load: { phases: loads, analyzeSeconds, totalRows, totalSeconds: r3(totalSeconds), rowsPerSecond: Math.round(totalRows / totalSeconds) },
-      },
-      figures: {
-        half: { analysis: halfReads.analysis, cohort: halfReads.cohort, cohortCache: halfReads.cohortCache, export: halfExport },
-        full: { analysis: fullReads.analysis, cohort: fullReads.cohort, cohortCache: fullReads.cohortCache, export: fullExport },
-        writes,
-        import: imported,
-        client,
-      },
+      scenario,
+      figures: { half: halfFigures, full: fullFigures, writes, import: imported, client },
       roundTrips,
       diagnostics: plans.map((p) => ({ query: p.name, executionMs: p.executionMs, planningMs: p.planningMs, seqScans: p.seqScans })),
       table: [],
