@@ -364,21 +364,42 @@ export function regionLabel(latitudeDeg: number, longitudeDeg: number): string {
   return `${lat}, ${lon}`;
 }
 
+/** looksLikeWrongVolumeUnit's default minimum number of values, passed explicitly so the early skip above cannot drift from it. */
+const WRONG_UNIT_MINIMUM_WEEKS = 4;
+
 const SERIES_LABEL: Record<WeeklyVolumeAggregate['series'], string> = { olla_refill: 'olla refills', surface: 'surface waterings' };
 
 /**
  * Wrong-unit flag for one trial: looksLikeWrongVolumeUnit on each kind of water event's series
  * of weekly mean litres per event (per event, so a week with more refills is not mistaken for
- * bigger ones; per kind, so pot refills are compared with pot refills).
+ * bigger ones; per kind, so pot refills are compared with pot refills). Hits are listed by kind,
+ * then by week.
  */
 export function wrongUnitFlag(weeks: readonly WeeklyVolumeAggregate[]): QualityFlag | null {
   const hits: QualityFlag['weeks'] = [];
+  const bySeries: Record<WeeklyVolumeAggregate['series'], WeeklyVolumeAggregate[]> = { olla_refill: [], surface: [] };
+  for (const w of weeks) bySeries[w.series]?.push(w);
   for (const series of ['olla_refill', 'surface'] as const) {
-    const sorted = weeks.filter((w) => w.series === series).sort((a, b) => a.weekStart.localeCompare(b.weekStart));
-    for (const f of looksLikeWrongVolumeUnit(sorted.map((w) => w.litresPerEvent))) {
+    const list = bySeries[series];
+    // Below the heuristic's minimum nothing can be flagged: skip the medians.
+    if (list.length < WRONG_UNIT_MINIMUM_WEEKS) continue;
+    // Whether a week is flagged depends only on its value and the series' median and MAD, not on
+    // the order: so the weeks are not sorted, only the (usually no) hits, by week (ISO dates sort
+    // as plain strings; ties keep their input order, as a stable sort of the weeks would).
+    const litres = new Array<number>(list.length);
+    for (let i = 0; i < list.length; i += 1) litres[i] = list[i]!.litresPerEvent;
+    const found = looksLikeWrongVolumeUnit(litres, { minimumValues: WRONG_UNIT_MINIMUM_WEEKS });
+    if (found.length > 1) {
+      found.sort((a, b) => {
+        const wa = list[a.index]!.weekStart;
+        const wb = list[b.index]!.weekStart;
+        return wa < wb ? -1 : wa > wb ? 1 : a.index - b.index;
+      });
+    }
+    for (const f of found) {
       hits.push({
         series,
-        weekStart: sorted[f.index]!.weekStart,
+        weekStart: list[f.index]!.weekStart,
         litresPerEvent: f.value,
         ratioToMedian: f.ratioToMedian,
         suggestedLitresPerEvent: f.suggestedValue,
@@ -525,7 +546,9 @@ export function fastLeaveOneOut(
   const k = effects.length;
   if (k < 3 || variances.length !== k) return [];
   const z = zFor(options.confidence);
-  const w = variances.map((v) => 1 / v);
+  const v = Float64Array.from(variances);
+  const w = new Float64Array(k);
+  for (let j = 0; j < k; j += 1) w[j] = 1 / v[j]!;
   // Centre the effects (every estimate here shifts with them) so the running sums keep their precision.
   let sw0 = 0;
   let swy0 = 0;
@@ -534,7 +557,8 @@ export function fastLeaveOneOut(
     swy0 += w[j]! * effects[j]!;
   }
   const shift = swy0 / sw0;
-  const y = effects.map((e) => e - shift);
+  const y = new Float64Array(k);
+  for (let j = 0; j < k; j += 1) y[j] = effects[j]! - shift;
   let S1 = 0;
   let S2 = 0;
   let Sy = 0;
@@ -547,7 +571,8 @@ export function fastLeaveOneOut(
     Syy += wj * y[j]! * y[j]!;
   }
   const df = k - 2;
-  const out: LeaveOneOutFit[] = [];
+  const reml = options.method === 'REML';
+  const out = new Array<LeaveOneOutFit>(k);
   for (let i = 0; i < k; i += 1) {
     const wi = w[i]!;
     const yi = y[i]!;
@@ -557,44 +582,73 @@ export function fastLeaveOneOut(
     const q = Syy - wi * yi * yi - (sy * sy) / s1;
     const c = s1 - s2 / s1;
     let tau2 = Math.max(0, (q - df) / c);
-    if (options.method === 'REML') tau2 = remlTau2Without(y, variances, i, tau2);
+    if (reml) tau2 = remlTau2Without(y, v, i, tau2);
+    // Same terms in the same order as a loop that skips i, without the test in the loop.
     let sw = 0;
     let swy = 0;
-    for (let j = 0; j < k; j += 1) {
-      if (j === i) continue;
-      const wr = 1 / (variances[j]! + tau2);
+    for (let j = 0; j < i; j += 1) {
+      const wr = 1 / (v[j]! + tau2);
+      sw += wr;
+      swy += wr * y[j]!;
+    }
+    for (let j = i + 1; j < k; j += 1) {
+      const wr = 1 / (v[j]! + tau2);
       sw += wr;
       swy += wr * y[j]!;
     }
     const estimate = swy / sw + shift;
     const se = Math.sqrt(1 / sw);
     const typicalWithin = (df * s1) / (s1 * s1 - s2);
-    out.push({ omitted: i, estimate, se, ci: [estimate - z * se, estimate + z * se], tau2, i2: (100 * tau2) / (tau2 + typicalWithin) });
+    out[i] = { omitted: i, estimate, se, ci: [estimate - z * se, estimate + z * se], tau2, i2: (100 * tau2) / (tau2 + typicalWithin) };
   }
   return out;
 }
 
+/** Running sums of one REML step over every trial but the omitted one (see remlTau2Without). */
+const remlSums = new Float64Array(6);
+
+/** Adds trials [from, to) to remlSums: Σw, Σw², Σw³, Σw·y, Σw²·y, Σw²·y². */
+function addRemlTerms(y: Float64Array, v: Float64Array, tau2: number, from: number, to: number): void {
+  let sw = remlSums[0]!;
+  let sw2 = remlSums[1]!;
+  let sw3 = remlSums[2]!;
+  let swy = remlSums[3]!;
+  let sw2y = remlSums[4]!;
+  let sw2yy = remlSums[5]!;
+  for (let j = from; j < to; j += 1) {
+    const wj = 1 / (v[j]! + tau2);
+    const w2 = wj * wj;
+    const yj = y[j]!;
+    const w2y = w2 * yj;
+    sw += wj;
+    sw2 += w2;
+    sw3 += w2 * wj;
+    swy += wj * yj;
+    sw2y += w2y;
+    // (w²·y)·y, the same product, in the same order, as w²·y·y.
+    sw2yy += w2y * yj;
+  }
+  remlSums[0] = sw;
+  remlSums[1] = sw2;
+  remlSums[2] = sw3;
+  remlSums[3] = swy;
+  remlSums[4] = sw2y;
+  remlSums[5] = sw2yy;
+}
+
 /** REML τ² of every trial but `omit`: meta.ts's Fisher scoring, step halving and tolerance, in one pass per step. */
-function remlTau2Without(y: readonly number[], v: readonly number[], omit: number, start: number): number {
+function remlTau2Without(y: Float64Array, v: Float64Array, omit: number, start: number): number {
   let tau2 = start;
   for (let iteration = 1; iteration <= REML_MAX_ITERATIONS; iteration += 1) {
-    let sw = 0;
-    let sw2 = 0;
-    let sw3 = 0;
-    let swy = 0;
-    let sw2y = 0;
-    let sw2yy = 0;
-    for (let j = 0; j < y.length; j += 1) {
-      if (j === omit) continue;
-      const wj = 1 / (v[j]! + tau2);
-      const w2 = wj * wj;
-      sw += wj;
-      sw2 += w2;
-      sw3 += w2 * wj;
-      swy += wj * y[j]!;
-      sw2y += w2 * y[j]!;
-      sw2yy += w2 * y[j]! * y[j]!;
-    }
+    remlSums.fill(0);
+    addRemlTerms(y, v, tau2, 0, omit);
+    addRemlTerms(y, v, tau2, omit + 1, y.length);
+    const sw = remlSums[0]!;
+    const sw2 = remlSums[1]!;
+    const sw3 = remlSums[2]!;
+    const swy = remlSums[3]!;
+    const sw2y = remlSums[4]!;
+    const sw2yy = remlSums[5]!;
     const mu = swy / sw;
     const traceP = sw - sw2 / sw;
     const tracePP = sw2 - (2 * sw3) / sw + (sw2 * sw2) / (sw * sw);
@@ -787,22 +841,31 @@ export function describeTrials(
   const weeksByTrial = groupBy(weekly, (w) => w.trialId);
   const prepared = trials.map((t) => {
     const pv = pairValues(blocksByTrial.get(t.trialId) ?? []);
-    const estimates = Object.fromEntries(effectKeys.map((k) => [k, trialEffect(pv.values[k], pv.totals[k])])) as Record<EffectKey, TrialEffectEstimate>;
+    const estimates = {} as Record<EffectKey, TrialEffectEstimate>;
+    for (const k of effectKeys) estimates[k] = trialEffect(pv.values[k], pv.totals[k]);
     const flags = ownFlags(t);
-    const unit = wrongUnitFlag(weeksByTrial.get(t.trialId) ?? []);
+    const weeks = weeksByTrial.get(t.trialId) ?? [];
+    const unit = wrongUnitFlag(weeks);
     if (unit) flags.push(unit);
-    return { t, pv, estimates, flags };
+    return { t, pv, estimates, flags, weeks };
   });
   for (const key of effectKeys) {
-    const withEstimate = prepared.flatMap((p) => (p.estimates[key].estimate !== null ? [{ trialId: p.t.trialId, value: p.estimates[key].estimate! }] : []));
+    const withEstimate: { trialId: string; value: number }[] = [];
+    for (const p of prepared) {
+      const value = p.estimates[key].estimate;
+      if (value !== null) withEstimate.push({ trialId: p.t.trialId, value });
+    }
     const outliers = outOfLineFlags(key, withEstimate);
+    if (outliers.size === 0) continue;
     for (const p of prepared) {
       const f = outliers.get(p.t.trialId);
       if (f) p.flags.push(f);
     }
   }
-  return prepared.map(({ t, pv, estimates, flags }) => {
-    const watered = daysWithWater(weeksByTrial.get(t.trialId) ?? []);
+  return prepared.map(({ t, pv, estimates, flags, weeks }) => {
+    const watered = daysWithWater(weeks);
+    const effects = {} as Record<EffectKey, TrialEffect>;
+    for (const k of effectKeys) effects[k] = { ...estimates[k], pooled: false };
     const row: CohortTrialRow = {
       trialId: t.trialId,
       pseudonym: t.pseudonym,
@@ -826,13 +889,7 @@ export function describeTrials(
       },
       flags,
       exclusion: t.exclusion,
-      effects: Object.fromEntries(
-        effectKeys.map((k) => {
-          const e = estimates[k];
-          const te: TrialEffect = { ...e, pooled: false };
-          return [k, te];
-        }),
-      ) as Record<EffectKey, TrialEffect>,
+      effects,
     };
     return { row, estimates, flagged: flags.length > 0, excluded: t.exclusion !== null };
   });

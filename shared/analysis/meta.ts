@@ -89,11 +89,28 @@ interface Tau2Fit {
   iterations: number;
 }
 
-function tau2DerSimonianLaird(effects: readonly number[], variances: readonly number[], q: number): Tau2Fit {
-  const w = variances.map((v) => 1 / v);
-  const sw = sum(w);
-  const c = sw - sum(w.map((x) => x * x)) / sw;
-  return { tau2: Math.max(0, (q - (effects.length - 1)) / c), converged: true, iterations: 0 };
+/*
+ * The sums below are simple-statistics' compensated `sum` over the same terms in the same order as
+ * the plain formulas (Σw, Σw², Σw·y, …), so the results are the same to the last bit; the terms go
+ * into scratch Float64Arrays reused across terms and REML steps instead of a new array per term,
+ * which a 500-trial cohort (one fit per subgroup level, per sensitivity set, per effect) turned
+ * into most of its garbage.
+ */
+
+/** simple-statistics' compensated sum of a Float64Array (it reads only length and indices). */
+function total(values: Float64Array): number {
+  return sum(values as unknown as number[]);
+}
+
+/** Σ term(i) for i < scratch.length, compensated, through `scratch`. */
+function sumOf(scratch: Float64Array, term: (i: number) => number): number {
+  for (let i = 0; i < scratch.length; i += 1) scratch[i] = term(i);
+  return total(scratch);
+}
+
+function tau2DerSimonianLaird(k: number, sw: number, sw2: number, q: number): Tau2Fit {
+  const c = sw - sw2 / sw;
+  return { tau2: Math.max(0, (q - (k - 1)) / c), converged: true, iterations: 0 };
 }
 
 /**
@@ -101,17 +118,18 @@ function tau2DerSimonianLaird(effects: readonly number[], variances: readonly nu
  * P = W − W11ᵀW / 1ᵀW1, each step adds (YᵀPPY − tr P) / tr(PP), halved while it would make
  * τ² negative (metafor's algorithm, written here for one intercept).
  */
-function tau2Reml(effects: readonly number[], variances: readonly number[], start: number): Tau2Fit {
+function tau2Reml(effects: readonly number[], variances: readonly number[], start: number, w: Float64Array, scratch: Float64Array): Tau2Fit {
+  const k = effects.length;
   let tau2 = start;
   for (let iteration = 1; iteration <= REML_MAX_ITERATIONS; iteration += 1) {
-    const w = variances.map((v) => 1 / (v + tau2));
-    const sw = sum(w);
-    const sw2 = sum(w.map((x) => x * x));
-    const sw3 = sum(w.map((x) => x * x * x));
-    const mu = weightedMean(effects, w);
+    for (let i = 0; i < k; i += 1) w[i] = 1 / ((variances[i] as number) + tau2);
+    const sw = total(w);
+    const sw2 = sumOf(scratch, (i) => w[i]! * w[i]!);
+    const sw3 = sumOf(scratch, (i) => w[i]! * w[i]! * w[i]!);
+    const mu = sumOf(scratch, (i) => w[i]! * (effects[i] as number)) / sw;
     const traceP = sw - sw2 / sw;
     const tracePP = sw2 - (2 * sw3) / sw + (sw2 * sw2) / (sw * sw);
-    const yPPy = sum(effects.map((y, i) => (w[i] as number) ** 2 * (y - mu) ** 2));
+    const yPPy = sumOf(scratch, (i) => w[i]! ** 2 * ((effects[i] as number) - mu) ** 2);
     let adjustment = (yPPy - traceP) / tracePP;
     // At the boundary with the score pointing below zero, τ² = 0 is the REML estimate.
     if (tau2 <= 0 && adjustment <= 0) return { tau2: 0, converged: true, iterations: iteration };
@@ -132,19 +150,22 @@ export function randomEffects(effects: readonly number[], variances: readonly nu
 
   const k = effects.length;
   const df = k - 1;
-  const w = variances.map((v) => 1 / v);
-  const sw = sum(w);
-  const sw2 = sum(w.map((x) => x * x));
-  const fixed = weightedMean(effects, w);
-  const q = sum(effects.map((y, i) => (w[i] as number) * (y - fixed) ** 2));
+  const scratch = new Float64Array(k);
+  const w = new Float64Array(k);
+  for (let i = 0; i < k; i += 1) w[i] = 1 / (variances[i] as number);
+  const sw = total(w);
+  const sw2 = sumOf(scratch, (i) => w[i]! * w[i]!);
+  const fixed = sumOf(scratch, (i) => w[i]! * (effects[i] as number)) / sw;
+  const q = sumOf(scratch, (i) => w[i]! * ((effects[i] as number) - fixed) ** 2);
 
-  const dl = tau2DerSimonianLaird(effects, variances, q);
-  const fit = method === 'DL' ? dl : tau2Reml(effects, variances, dl.tau2);
+  const dl = tau2DerSimonianLaird(k, sw, sw2, q);
+  const fit = method === 'DL' ? dl : tau2Reml(effects, variances, dl.tau2, new Float64Array(k), scratch);
   const tau2 = fit.tau2;
 
-  const wRandom = variances.map((v) => 1 / (v + tau2));
-  const swRandom = sum(wRandom);
-  const estimate = weightedMean(effects, wRandom);
+  const wRandom = new Float64Array(k);
+  for (let i = 0; i < k; i += 1) wRandom[i] = 1 / ((variances[i] as number) + tau2);
+  const swRandom = total(wRandom);
+  const estimate = sumOf(scratch, (i) => wRandom[i]! * (effects[i] as number)) / swRandom;
   const se = Math.sqrt(1 / swRandom);
   const zCrit = twoSidedZ(confidence);
   const z = estimate / se;
@@ -160,6 +181,8 @@ export function randomEffects(effects: readonly number[], variances: readonly nu
     predictionInterval = [estimate - half, estimate + half];
   }
 
+  const weightsPercent = new Array<number>(k);
+  for (let i = 0; i < k; i += 1) weightsPercent[i] = (100 * wRandom[i]!) / swRandom;
   return {
     k,
     method,
@@ -175,7 +198,7 @@ export function randomEffects(effects: readonly number[], variances: readonly nu
     i2,
     h2,
     predictionInterval,
-    weightsPercent: wRandom.map((x) => (100 * x) / swRandom),
+    weightsPercent,
     converged: fit.converged,
     iterations: fit.iterations,
   };
