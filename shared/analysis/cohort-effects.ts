@@ -865,7 +865,11 @@ export function describeTrials(
   return prepared.map(({ t, pv, estimates, flags, weeks }) => {
     const watered = daysWithWater(weeks);
     const effects = {} as Record<EffectKey, TrialEffect>;
-    for (const k of effectKeys) effects[k] = { ...estimates[k], pooled: false };
+    for (const k of effectKeys) {
+      // Written out rather than spread (V8's slow path for a spread plus a key); same keys, same order.
+      const e = estimates[k];
+      effects[k] = { pairs: e.pairs, estimate: e.estimate, variance: e.variance, perPairVariance: e.perPairVariance, source: e.source, note: e.note, pooled: false };
+    }
     const row: CohortTrialRow = {
       trialId: t.trialId,
       pseudonym: t.pseudonym,
