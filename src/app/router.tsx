@@ -32,7 +32,7 @@ import { RoundPage } from './routes/round';
 import { TrialPage } from './routes/trial';
 import { UnsubscribePage, unsubscribePath } from './routes/unsubscribe';
 import { CohortsPage } from './routes/cohorts';
-import { RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
+import { Loading, RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
 import { HomePage } from './routes/home';
 import { JoinPage } from './routes/join';
 import { NotFoundPage } from './routes/not-found';
@@ -62,7 +62,7 @@ export function createAppRouter(queryClient: QueryClient) {
   return createBrowserRouter([
     {
       loader: sessionLoader,
-      hydrateFallbackElement: <p className="p-8">Loading…</p>,
+      hydrateFallbackElement: <Loading />,
       errorElement: <RouteErrorPage />,
       children: [
         {

@@ -1,4 +1,5 @@
 import { useEffect } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Link, useSearchParams } from 'react-router-dom';
 import { PublicLayout } from '@/components/layout/public-layout';
 import { Alert } from '@/components/ui/alert';
@@ -11,6 +12,7 @@ export const unsubscribePath = '/unsubscribe';
 
 /** Opened from an e-mail's "Stop these e-mails" link: works signed in or not. */
 export function UnsubscribePage() {
+  const { t } = useTranslation('notifications');
   const [params] = useSearchParams();
   const token = params.get('token');
   const user = useCurrentUser();
@@ -20,14 +22,14 @@ export function UnsubscribePage() {
     if (token) mutate(token);
   }, [token, mutate]);
   return (
-    <PublicLayout title="Stop these e-mails">
-      {!token ? <Alert tone="error">This unsubscribe link is incomplete. Copy the whole link from the e-mail, or change your reminders under Account.</Alert> : null}
-      {stop.isPending ? <p role="status">Turning them off…</p> : null}
-      {stop.isSuccess ? <Alert tone="success">{stop.data.message}</Alert> : null}
+    <PublicLayout title={t(($) => $.unsubscribe.title)}>
+      {!token ? <Alert tone="error">{t(($) => $.unsubscribe.incomplete)}</Alert> : null}
+      {stop.isPending ? <p role="status">{t(($) => $.unsubscribe.working)}</p> : null}
+      {stop.isSuccess ? <Alert tone="success">{t(($) => $.unsubscribe.done[stop.data.kind])}</Alert> : null}
       {stop.isError ? <Alert tone="error">{stop.error.message}</Alert> : null}
       <p className="mt-4 text-sm">
         <Link className="text-terracotta-700 underline" to={user ? paths.account : paths.signIn}>
-          {user ? 'Choose which e-mails you get' : 'Sign in to choose which e-mails you get'}
+          {user ? t(($) => $.unsubscribe.choose) : t(($) => $.unsubscribe.signInChoose)}
         </Link>
       </p>
     </PublicLayout>
