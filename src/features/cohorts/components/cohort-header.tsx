@@ -1,6 +1,6 @@
 import { useTranslation } from 'react-i18next';
 import type { CohortSummary } from '@shared/schemas/cohorts';
-import { formatDate } from '@/lib/format';
+import { formatDate, formatNumber } from '@/lib/format';
 import { useMyPlaceText } from './cohort-list';
 import { isKnownLicence } from './labels';
 import { ClosedBadge, RoleBadge } from './role-badge';
@@ -23,7 +23,7 @@ export function CohortHeader({ cohort }: { cohort: CohortSummary }) {
         <div className="flex gap-1">
           <dt className="text-ink-muted">{t(($) => $.header.members)}</dt>
           <dd className="font-medium">
-            {cohort.capacity !== null ? t(($) => $.header.membersOf, { n: cohort.memberCount, capacity: cohort.capacity }) : cohort.memberCount}
+            {cohort.capacity !== null ? t(($) => $.header.membersOf, { n: formatNumber(cohort.memberCount, 0), capacity: formatNumber(cohort.capacity, 0) }) : cohort.memberCount}
           </dd>
         </div>
         <div className="flex gap-1">
