@@ -212,7 +212,7 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
             <Button variant="secondary" disabled={params.page <= 1} onClick={() => onParamsChange({ ...params, page: params.page - 1 })}>
               {tc(($) => $.actions.previous)}
             </Button>
-            <span className="self-center text-sm">
+            <span className="self-center whitespace-nowrap text-sm">
               {t(($) => $.users.page, { page: params.page, pages })}
             </span>
             <Button variant="secondary" disabled={params.page >= pages} onClick={() => onParamsChange({ ...params, page: params.page + 1 })}>
