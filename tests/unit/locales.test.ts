@@ -26,7 +26,7 @@ function flatten(tree: Tree, prefix = ''): Map<string, string> {
 }
 
 const read = (lang: string, file: string) => flatten(JSON.parse(fs.readFileSync(path.join(ROOT, lang, file), 'utf8')) as Tree);
-const placeholders = (s: string) => [...s.matchAll(/\{\{\s*([\w.]+)(?:\s*,[^}]*)?\s*\}\}/g)].map((m) => m[1] ?? '').sort();
+const placeholders = (s: string) => [...s.matchAll(/\{\{\s*([\w.]+)(?:\s*,[^}]*)?\s*\}\}/g)].map((m) => m[1]).sort();
 /** Keys with the plural suffix taken off, so "pots_one"/"pots_other" count as "pots". */
 const bases = (keys: Iterable<string>) => new Set([...keys].map((k) => k.replace(PLURAL, '')));
 
@@ -71,7 +71,7 @@ describe('translation files', () => {
         for (const [k, v] of strings) {
           const b = k.replace(PLURAL, '');
           const set = m.get(b) ?? new Set<string>();
-          for (const p of placeholders(v)) set.add(p);
+          for (const p of placeholders(v)) if (p) set.add(p);
           m.set(b, set);
         }
         return m;

@@ -17,7 +17,7 @@ function uptime(s: number, t: TFunction<'admin'>): string {
 
 function Fact({ label, value }: { label: string; value: string }) {
   return (
-    <div className="flex items-baseline justify-between gap-3 border-b border-sand-100 py-1.5 last:border-0">
+    <div className="flex break-inside-avoid items-baseline justify-between gap-3 border-b border-sand-100 py-1.5">
       <dt className="text-sm text-ink-muted">{label}</dt>
       <dd className="num text-sm font-medium">{value}</dd>
     </div>
@@ -50,22 +50,19 @@ export function HealthCard() {
               ? t(($) => $.health.dbUp, { ms: formatNumber(health.data.database.latencyMs, 0) })
               : t(($) => $.health.dbState, { status: health.data.database.status, ms: formatNumber(health.data.database.latencyMs, 0) })}
           </p>
-          <dl className="grid gap-x-8 sm:grid-cols-2">
-            <div>
-              <Fact label={t(($) => $.health.accounts)} value={formatNumber(health.data.counts.users, 0)} />
-              <Fact label={t(($) => $.health.cohorts)} value={formatNumber(health.data.counts.cohorts, 0)} />
-              <Fact label={t(($) => $.health.sessions)} value={formatNumber(health.data.counts.activeSessions, 0)} />
-              <Fact label={t(($) => $.health.migrations)} value={formatNumber(health.data.database.migrationsApplied, 0)} />
-            </div>
-            <div>
-              <Fact label={t(($) => $.health.database)} value={health.data.database.version} />
-              <Fact label={t(($) => $.health.uptime)} value={uptime(health.data.process.uptimeS, t)} />
-              <Fact label={t(($) => $.health.memory)} value={`${formatNumber(health.data.process.rssMb, 0)} / ${formatNumber(health.data.process.heapUsedMb, 0)} MB`} />
-              <Fact label={t(($) => $.health.node)} value={health.data.process.node} />
-              <Fact label={t(($) => $.health.mail)} value={health.data.mail.mode} />
-            </div>
+          {/* One <dl> of <div>-wrapped pairs (a <dl> allows no deeper nesting); two columns by CSS. */}
+          <dl className="gap-x-8 sm:columns-2">
+            <Fact label={t(($) => $.health.accounts)} value={formatNumber(health.data.counts.users, 0)} />
+            <Fact label={t(($) => $.health.cohorts)} value={formatNumber(health.data.counts.cohorts, 0)} />
+            <Fact label={t(($) => $.health.sessions)} value={formatNumber(health.data.counts.activeSessions, 0)} />
+            <Fact label={t(($) => $.health.migrations)} value={formatNumber(health.data.database.migrationsApplied, 0)} />
+            <Fact label={t(($) => $.health.database)} value={health.data.database.version} />
+            <Fact label={t(($) => $.health.uptime)} value={uptime(health.data.process.uptimeS, t)} />
+            <Fact label={t(($) => $.health.memory)} value={`${formatNumber(health.data.process.rssMb, 0)} / ${formatNumber(health.data.process.heapUsedMb, 0)} MB`} />
+            <Fact label={t(($) => $.health.node)} value={health.data.process.node} />
+            <Fact label={t(($) => $.health.mail)} value={health.data.mail.mode} />
           </dl>
-          <p className="text-xs text-ink-faint">{t(($) => $.health.checked, { when: formatDateTime(new Date(health.dataUpdatedAt).toISOString()) })}</p>
+          <p className="text-xs text-ink-muted">{t(($) => $.health.checked, { when: formatDateTime(new Date(health.dataUpdatedAt).toISOString()) })}</p>
         </>
       )}
     </Card>
