@@ -344,12 +344,10 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
 
       // Query plans at full size, for the diagnostics.
       if (want('analysis')) {
-        const [trialRow] = (await ds.query(analysisQueries.trial, [ids.featuredTrialId])) as { gardenId: string; plantingDate: string; endDate: string }[];
-        const asOf = trialRow!.endDate < today() ? trialRow!.endDate : today();
         for (const [name, sql, params] of [
           ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
           ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
-          ['analysis.weather', analysisQueries.weather, [trialRow!.gardenId, trialRow!.plantingDate, asOf]],
+          ['analysis.weather', analysisQueries.weather, [ids.featuredTrialId, today()]],
           ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
         ] as const) {
           plans.push(await explain(ds, name, sql, [...params]));
