@@ -2,7 +2,7 @@ import { potMakeLabels, potShapeLabels } from '@shared/schemas/pots';
 import { soilTextureLabels } from '@shared/schemas/gardens';
 import { cropLabel } from '@shared/charts/cohort-charts';
 import type { CohortResults, CohortTrialRow, EffectKey, ModeratorKey, QualityFlag } from '@shared/schemas/cohort-results';
-import { measureLabels, num, plural } from './format';
+import { crT, measureLabels, num, plural, sharedT } from './format';
 
 export const moderatorLabels: Record<ModeratorKey, string> = {
   potCapacity: 'Pot capacity',
@@ -34,7 +34,7 @@ export function levelLabel(moderator: ModeratorKey, level: string): string {
     case 'potMake':
       return potMakeLabels[level as keyof typeof potMakeLabels] ?? level;
     case 'crop':
-      return cropLabel(level);
+      return cropLabel(level, sharedT());
     case 'soilTexture':
       return soilTextureLabels[level as keyof typeof soilTextureLabels] ?? level;
     case 'setting':
@@ -81,21 +81,22 @@ export function flagWords(f: QualityFlag): { title: string; details: string[] } 
   }
 }
 
-/** Why a trial is not in a measure's pooled estimate, in words; null when it is in. */
+/** Why a trial is not in a measure's pooled estimate, in words (the reader's language); null when it is in. */
 export function whyNotPooled(t: CohortTrialRow, key: EffectKey, options: CohortResults['options']): string | null {
+  const tr = crT();
   const e = t.effects[key];
   if (e.pooled) return null;
-  if (t.exclusion) return 'Left out by the lead';
-  if (options.excludeFlagged && t.flags.length) return 'Left out: has a quality flag';
+  if (t.exclusion) return tr(($) => $.why.excluded);
+  if (options.excludeFlagged && t.flags.length) return tr(($) => $.why.flagged);
   if (e.pairs === 1 && e.estimate !== null) {
-    return options.includeSinglePairs ? 'Single pair, and no other trial to borrow a variance from' : 'Single pair (not included)';
+    return options.includeSinglePairs ? tr(($) => $.why.singleNoBorrow) : tr(($) => $.why.singleNotIncluded);
   }
-  if (e.pairs >= 2 && e.estimate !== null && e.variance === null) return 'Every pair gave the same value (copied entries?)';
-  if (key !== 'waterLogRatio' && t.completeness.pairsMissingHarvest > 0) return 'Harvest not recorded on every plot of a pair';
-  if (t.pairs === 0) return 'No pair of pot and surface beds';
-  return 'No complete pair with records yet';
+  if (e.pairs >= 2 && e.estimate !== null && e.variance === null) return tr(($) => $.why.sameValue);
+  if (key !== 'waterLogRatio' && t.completeness.pairsMissingHarvest > 0) return tr(($) => $.why.harvestMissing);
+  if (t.pairs === 0) return tr(($) => $.why.noPair);
+  return tr(($) => $.why.noRecords);
 }
 
 export function trialCrop(t: CohortTrialRow): string {
-  return cropLabel(t.crop);
+  return cropLabel(t.crop, sharedT());
 }
