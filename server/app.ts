@@ -9,6 +9,7 @@ import { sessionMiddleware } from './auth/session';
 import type { Env } from './config/env';
 import type { AppContext } from './context';
 import type { ResourceResolver } from './http/access';
+import { compressResponses } from './http/compression';
 import { mountRoutes, type RouteSpec } from './http/route';
 import type { SmtpSink } from './infra/smtp-sink';
 import type { Logger } from './lib/logger';
@@ -110,6 +111,7 @@ export function createApp(deps: AppDeps) {
       crossOriginEmbedderPolicy: false,
     }),
   );
+  app.use(compressResponses());
   if (env.NODE_ENV !== 'test') {
     app.use('/api', pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   }

@@ -21,22 +21,21 @@ export function Chart({ title, takeaway, spec, fileName, alternative }: { title:
         <h3 className="text-base">{title}</h3>
         <p className="text-sm text-ink-muted">{takeaway}</p>
       </figcaption>
-      <div className="overflow-x-auto" role="img" aria-label={t(($) => $.imageLabel, { title, takeaway: typeof takeaway === 'string' ? takeaway : '' })}>
-        <Suspense
-          fallback={
-            <p role="status" className="py-8 text-center text-sm text-ink-muted">
-              {t(($) => $.drawing)}
-            </p>
-          }
-        >
-          <VegaChart
-            spec={{ ...spec, config: { ...chartConfig, ...(spec as { config?: object }).config } } as VisualizationSpec}
-            fileName={fileName}
-            lang={lang}
-            labels={{ menu: t(($) => $.actions.menu), svg: t(($) => $.actions.svg), png: t(($) => $.actions.png) }}
-          />
-        </Suspense>
-      </div>
+      <Suspense
+        fallback={
+          <p role="status" className="py-8 text-center text-sm text-ink-muted">
+            {t(($) => $.drawing)}
+          </p>
+        }
+      >
+        <VegaChart
+          spec={{ ...spec, config: { ...chartConfig, ...(spec as { config?: object }).config } } as VisualizationSpec}
+          fileName={fileName}
+          lang={lang}
+          label={t(($) => $.imageLabel, { title, takeaway: typeof takeaway === 'string' ? takeaway : '' })}
+          words={{ save: t(($) => $.save), saveAs: (format) => t(($) => $.saveAs, { title, format }) }}
+        />
+      </Suspense>
       <details className="text-sm">
         <summary className="cursor-pointer text-terracotta-700 underline">{t(($) => $.showTable)}</summary>
         <div className="mt-2 overflow-x-auto">{alternative}</div>

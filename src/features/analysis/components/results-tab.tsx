@@ -117,7 +117,7 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
           <p className="text-3xl font-semibold">{c.wueRatio === null ? '—' : fmt(c.wueRatio, 2)}</p>
         </Card>
       </div>
-      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={t(($) => $.paired.scrollRegion, { treatment, control })}>
         <table className="w-full text-sm">
           <caption className="px-3 pt-3 text-left font-semibold">{t(($) => $.paired.caption, { treatment, control })}</caption>
           <thead className="text-left text-ink-muted">
@@ -229,7 +229,7 @@ export function ResultsTab({ trialId, treatments }: { trialId: string; treatment
 
       <section className="space-y-3" aria-labelledby="totals-heading">
         <h2 id="totals-heading">{t(($) => $.totals.heading)}</h2>
-        <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+        <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={t(($) => $.totals.scrollRegion)}>
           <table className="w-full text-sm">
             <thead className="bg-sand-100 text-left">
               <tr>

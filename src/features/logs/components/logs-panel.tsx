@@ -85,7 +85,7 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
         </SelectField>
       </div>
       {logs.isError ? <Alert tone="error">{logs.error.message}</Alert> : null}
-      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={`${logTitles[kind]} records (scrolls sideways)`}>
         <table className="w-full text-sm">
           <caption className="sr-only">{logTitles[kind]} records</caption>
           <thead className="bg-sand-100 text-left">
