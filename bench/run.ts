@@ -9,10 +9,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { defaultOptions, FIGURE_NAMES, runBench, type BenchOptions, type BenchResults, type FigureName } from './bench';
+import { runAnalysisOnly, type AnalysisOnlyOptions } from './analysis-only';
 import { renderMarkdown, tableRows } from './lib/report';
 
-function parseArgs(argv: string[]): Partial<BenchOptions> {
-  const o: Partial<BenchOptions> = {};
+type Parsed = Partial<BenchOptions> & Partial<Pick<AnalysisOnlyOptions, 'reuseDatabase' | 'iterations' | 'label'>> & { analysisProbe?: boolean };
+
+function parseArgs(argv: string[]): Parsed {
+  const o: Parsed = {};
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     const value = () => {
@@ -33,8 +36,13 @@ function parseArgs(argv: string[]): Partial<BenchOptions> {
     else if (a === '--out') o.outDir = path.resolve(value());
     else if (a === '--keep-db') o.keepDatabase = true;
     else if (a === '--pg-port') o.pgPort = Number(value());
+    else if (a === '--analysis-probe') o.analysisProbe = true;
+    else if (a === '--reuse-db') o.reuseDatabase = true;
+    else if (a === '--iterations') o.iterations = Number(value());
+    else if (a === '--label') o.label = value();
     else if (a === '--help' || a === '-h') {
       console.log(`npm run bench -- [--scale 0.001] [--skip-browser] [--only ${FIGURE_NAMES.join(',')}] [--out DIR] [--keep-db] [--pg-port 54349]`);
+      console.log('npm run bench -- --analysis-probe [--keep-db] [--reuse-db] [--iterations 50] [--label TEXT] [--pg-port 54349]');
       process.exit(0);
     } else throw new Error(`Unknown option ${a}`);
   }
@@ -53,7 +61,18 @@ if (renderAt !== -1) {
   process.exit(0);
 }
 
-const parsed = parseArgs(process.argv.slice(2));
+const { analysisProbe, reuseDatabase, iterations, label, ...parsed } = parseArgs(process.argv.slice(2));
+if (analysisProbe) {
+  // Figure 1 alone against a kept full-size database, for before/after comparisons from two checkouts
+  // (bench/analysis-only.ts): appends to bench/tmp/analysis-only.json, not the full report.
+  runAnalysisOnly({ ...defaultOptions(), ...parsed, reuseDatabase: reuseDatabase ?? false, iterations: iterations ?? 50, label: label ?? 'analysis-only' }).then(
+    () => process.exit(0),
+    (err: unknown) => {
+      console.error(err);
+      process.exit(1);
+    },
+  );
+} else {
 // A partial run does not overwrite the full run's bench/results.json and RESULTS.md unless --out says so.
 const options = { ...defaultOptions(), ...(parsed.only ? { outDir: path.join(defaultOptions().tmpDir, 'only') } : {}), ...parsed };
 runBench(options).then(
@@ -69,3 +88,4 @@ runBench(options).then(
     process.exit(1);
   },
 );
+}

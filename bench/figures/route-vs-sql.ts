@@ -65,23 +65,22 @@ export async function compareRouteWithSql(o: {
   return { path: o.path, iterations: routeMs.length, warmup: o.warmup, routeMs: roundSummary(r), bareSqlMs: roundSummary(b), ratio: r.median / b.median, responseBytes };
 }
 
-/** The analysis route's SQL exactly as analysis.service.ts runs it: the trial row, then four aggregates at once. */
+/** The analysis route's SQL exactly as analysis.service.ts runs it: the trial row and four aggregates at once. */
 export function bareAnalysis(ds: DataSource, trialId: string, today: () => string) {
   return async () => {
-    const [trial] = (await ds.query(analysisQueries.trial, [trialId])) as { gardenId: string; plantingDate: string; endDate: string | null }[];
-    if (!trial) throw new Error('analysis trial not found');
-    const t = today();
-    const asOf = trial.endDate && trial.endDate < t ? trial.endDate : t;
-    await Promise.all([
+    const [trial] = (await Promise.all([
+      ds.query(analysisQueries.trial, [trialId]),
       ds.query(analysisQueries.plots, [trialId]),
       ds.query(analysisQueries.dailyWater, [trialId]),
-      ds.query(analysisQueries.weather, [trial.gardenId, trial.plantingDate, asOf]),
+      ds.query(analysisQueries.weather, [trialId, today()]),
       ds.query(analysisQueries.moisture, [trialId]),
-    ]);
+    ])) as unknown[][];
+    if (!trial?.length) throw new Error('analysis trial not found');
   };
 }
 
-export type CohortQueries = { trials: string; blocks: string; weeklyVolumes: string; progress: string };
+/** The four aggregates, and (with the log rollups) the staleness check the route runs before them. */
+export type CohortQueries = { stale?: string; trials: string; blocks: string; weeklyVolumes: string; progress: string };
 
 /**
  * The cohort results service, if this checkout has it (another engineer is building it). Loaded by
@@ -97,10 +96,11 @@ export async function loadCohortResultsQueries(): Promise<CohortQueries | null> 
   }
 }
 
-/** The cohort results route's SQL as cohort-results.service.ts runs it: four aggregates at once. */
+/** The cohort results route's SQL as cohort-results.service.ts runs it: the staleness check if any, then four aggregates at once. */
 export function bareCohortResults(ds: DataSource, q: CohortQueries, cohortId: string, userId: string, today: () => string) {
   return async () => {
     const t = today();
+    if (q.stale) await ds.query(q.stale, [cohortId]);
     await Promise.all([
       ds.query(q.trials, [cohortId, userId, t]),
       ds.query(q.blocks, [cohortId]),
