@@ -79,7 +79,8 @@ export function bareAnalysis(ds: DataSource, trialId: string, today: () => strin
   };
 }
 
-export type CohortQueries = { trials: string; blocks: string; weeklyVolumes: string; progress: string };
+/** The four aggregates, and (with the log rollups) the staleness check the route runs before them. */
+export type CohortQueries = { stale?: string; trials: string; blocks: string; weeklyVolumes: string; progress: string };
 
 /**
  * The cohort results service, if this checkout has it (another engineer is building it). Loaded by
@@ -95,10 +96,11 @@ export async function loadCohortResultsQueries(): Promise<CohortQueries | null> 
   }
 }
 
-/** The cohort results route's SQL as cohort-results.service.ts runs it: four aggregates at once. */
+/** The cohort results route's SQL as cohort-results.service.ts runs it: the staleness check if any, then four aggregates at once. */
 export function bareCohortResults(ds: DataSource, q: CohortQueries, cohortId: string, userId: string, today: () => string) {
   return async () => {
     const t = today();
+    if (q.stale) await ds.query(q.stale, [cohortId]);
     await Promise.all([
       ds.query(q.trials, [cohortId, userId, t]),
       ds.query(q.blocks, [cohortId]),

@@ -4,6 +4,7 @@ import { CohortMembershipEntity } from '../entities/cohort-membership.entity';
 import { CohortEntity } from '../entities/cohort.entity';
 import { GardenEntity } from '../entities/garden.entity';
 import { HarvestEntity } from '../entities/harvest.entity';
+import { PlotLogTotalEntity, TrialLogSummaryEntity, TrialWeekWaterEntity } from '../entities/log-rollups.entity';
 import { MoistureReadingEntity } from '../entities/moisture-reading.entity';
 import { NotificationPreferenceEntity } from '../entities/notification-preference.entity';
 import { NotificationSendEntity } from '../entities/notification-send.entity';
@@ -45,4 +46,7 @@ export const entities = [
   TrialExclusionEntity,
   NotificationPreferenceEntity,
   NotificationSendEntity,
+  TrialLogSummaryEntity,
+  PlotLogTotalEntity,
+  TrialWeekWaterEntity,
 ];

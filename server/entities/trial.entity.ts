@@ -68,6 +68,14 @@ export class TrialEntity {
   @Column({ name: 'randomisation_seed', type: 'varchar', length: 64, nullable: true })
   randomisationSeed: string | null;
 
+  /**
+   * Bumped by database triggers in the same transaction as every write to the trial's water
+   * events, moisture readings, harvests or plots; the log rollups (log-rollups.entity.ts) are
+   * valid only for the version they were computed at. Never set by the application.
+   */
+  @Column({ name: 'data_version', type: 'bigint', default: 0, select: false, insert: false, update: false })
+  dataVersion: string;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 

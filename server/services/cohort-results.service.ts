@@ -6,13 +6,21 @@ import {
   type WeeklyVolumeAggregate,
 } from '@shared/analysis/cohort-effects';
 import type { CohortResults, CohortResultsQuery, CreateExclusionInput, Exclusion } from '@shared/schemas/cohort-results';
+import type { DataSource } from 'typeorm';
 import type { AppContext } from '../context';
 import { AppError } from '../lib/app-error';
+import { refreshTrialRollups } from './log-rollups';
 
 /**
  * A cohort's pooled results. SQL sums every log per trial, block and week (one query per
  * concern, every trial at once, no log rows in JavaScript); shared/analysis/cohort-effects.ts
  * turns the aggregates into effects, flags and pooled estimates.
+ *
+ * The log sums come from per-trial rollups (server/services/log-rollups.ts): each request first
+ * recomputes, from the raw rows, the rollups of the shared trials whose logs changed since
+ * (`trials.data_version`, bumped by triggers on every log write), then reads the rollups; a page
+ * of 500 trials no longer re-aggregates ~265,000 water events per request. Everything else (shares,
+ * pseudonyms, exclusions, trial dates, plots, pots, gardens) is read live.
  *
  * The trials are those shared into the cohort and not withdrawn, whose owner is still a member
  * (the pseudonym comes from that membership; a trial whose owner left has no pseudonym and is
@@ -29,7 +37,12 @@ const sharedTrials = `
      WHERE s.cohort_id = $1 AND s.withdrawn_at IS NULL
   )`;
 
-export const cohortResultsQueries = {
+/**
+ * The same four aggregates computed from the raw log rows on every call: the definition the rollups
+ * must reproduce. Not used by the route (it reads the rollups through `cohortResultsQueries`); kept
+ * for the API test that compares both after a sequence of writes and for the benchmark's before/after.
+ */
+export const cohortResultsRawQueries = {
   /** One row per shared trial: description, season length, harvest and moisture counts, pot and plot features, exclusion. $2 = caller, $3 = today. */
   trials: `
     WITH ${sharedTrials},
@@ -141,32 +154,174 @@ export const cohortResultsQueries = {
      ORDER BY week, treatment`,
 };
 
+/**
+ * $1 = cohort id. The shared trials whose log rollups exist (refreshed just before by
+ * `refreshTrialRollups`; a trial shared after that refresh waits for the next request).
+ */
+const summarisedTrials = `
+  shared AS (
+    SELECT t.id, t.owner_id, t.garden_id, t.crop, t.status, t.planting_date, t.end_date, m.pseudonym,
+           ls.harvest_records, ls.moisture_methods
+      FROM trial_shares s
+      JOIN trials t ON t.id = s.trial_id
+      JOIN cohort_memberships m ON m.cohort_id = s.cohort_id AND m.user_id = t.owner_id
+      JOIN trial_log_summaries ls ON ls.trial_id = t.id
+     WHERE s.cohort_id = $1 AND s.withdrawn_at IS NULL
+  )`;
+
+/**
+ * What the route runs: the aggregates of `cohortResultsRawQueries`, read from the per-trial log
+ * rollups (server/services/log-rollups.ts) instead of the raw logs. Same parameters, same rows.
+ */
+export const cohortResultsQueries = {
+  /** Run first: the shared trials whose rollups are missing or older than their logs (recomputed before the four reads). */
+  stale: `
+    WITH ${sharedTrials}
+    SELECT sh.id FROM shared sh JOIN trials t ON t.id = sh.id LEFT JOIN trial_log_summaries ls ON ls.trial_id = sh.id
+     WHERE ls.trial_id IS NULL OR ls.data_version <> t.data_version`,
+
+  /** As `cohortResultsRawQueries.trials`; harvest counts and moisture methods from the trial summaries. $2 = caller, $3 = today. */
+  trials: `
+    WITH ${summarisedTrials},
+    spans AS (SELECT id, planting_date, LEAST(COALESCE(end_date, $3::date), $3::date) AS as_of FROM shared),
+    plot_features AS (
+      SELECT p.trial_id, array_agg(DISTINCT p.setting::text) AS settings, array_agg(DISTINCT p.mulch) AS mulch,
+             array_agg(DISTINCT p.lid) FILTER (WHERE p.treatment = 'olla') AS lids
+        FROM plots p JOIN shared sh ON sh.id = p.trial_id
+       WHERE p.treatment IN ('olla', 'surface')
+       GROUP BY p.trial_id),
+    pot_features AS (
+      SELECT p.trial_id, count(*)::int AS pot_count, avg(po.capacity_l)::float8 AS mean_capacity,
+             array_agg(DISTINCT po.capacity_l) AS capacities, array_agg(DISTINCT po.shape::text) AS shapes,
+             array_agg(DISTINCT po.clay_body::text) AS clay_bodies, array_agg(DISTINCT po.make::text) AS makes
+        FROM pots po JOIN plots p ON p.id = po.plot_id JOIN shared sh ON sh.id = p.trial_id
+       WHERE p.treatment = 'olla'
+       GROUP BY p.trial_id)
+    SELECT sh.id AS "trialId", sh.pseudonym, sh.owner_id = $2 AS mine, sh.crop, sh.status,
+           sh.planting_date AS "plantingDate", sh.end_date AS "endDate",
+           round(g.latitude_deg)::int AS "latitudeDeg", round(g.longitude_deg)::int AS "longitudeDeg", g.soil_texture AS "soilTexture",
+           GREATEST(sp.as_of - sp.planting_date + 1, 0)::int AS "expectedDays",
+           sh.harvest_records AS "harvestRecords",
+           sh.moisture_methods AS "moistureMethods",
+           COALESCE(pf.settings, '{}') AS settings, COALESCE(pf.mulch, '{}') AS mulch, COALESCE(pf.lids, '{}') AS lids,
+           COALESCE(pt.pot_count, 0) AS "potCount", pt.mean_capacity AS "meanPotCapacityL", COALESCE(pt.capacities, '{}') AS "potCapacitiesL",
+           COALESCE(pt.shapes, '{}') AS "potShapes", COALESCE(pt.clay_bodies, '{}') AS "clayBodies", COALESCE(pt.makes, '{}') AS "potMakes",
+           x.reason AS "exclusionReason", x.created_at AS "exclusionCreatedAt", COALESCE(x.excluded_by = $2, false) AS "excludedByMe"
+      FROM shared sh
+      JOIN spans sp ON sp.id = sh.id
+      JOIN gardens g ON g.id = sh.garden_id
+      LEFT JOIN plot_features pf ON pf.trial_id = sh.id
+      LEFT JOIN pot_features pt ON pt.trial_id = sh.id
+      LEFT JOIN trial_exclusions x ON x.cohort_id = $1 AND x.trial_id = sh.id
+     ORDER BY sh.pseudonym, sh.planting_date, sh.id`,
+
+  /** As `cohortResultsRawQueries.blocks`; water and harvest per plot from `plot_log_totals`. */
+  blocks: `
+    WITH ${summarisedTrials},
+    plot AS (
+      SELECT p.trial_id, p.block_key, p.treatment, p.area_m2, p.plant_count,
+             COALESCE(lt.water_l, 0) AS litres, COALESCE(lt.harvest_kg, 0) AS kg, COALESCE(lt.harvest_records, 0) = 0 AS no_harvest
+        FROM plots p JOIN shared sh ON sh.id = p.trial_id
+        LEFT JOIN plot_log_totals lt ON lt.plot_id = p.id
+       WHERE p.treatment IN ('olla', 'surface'))
+    SELECT trial_id AS "trialId", block_key AS "blockKey",
+           count(*) FILTER (WHERE treatment = 'olla')::int AS "ollaPlots",
+           COALESCE(sum(area_m2) FILTER (WHERE treatment = 'olla'), 0)::float8 AS "ollaAreaM2",
+           COALESCE(sum(plant_count) FILTER (WHERE treatment = 'olla'), 0)::int AS "ollaPlants",
+           COALESCE(sum(litres) FILTER (WHERE treatment = 'olla'), 0)::float8 AS "ollaL",
+           COALESCE(sum(kg) FILTER (WHERE treatment = 'olla'), 0)::float8 AS "ollaHarvestKg",
+           count(*) FILTER (WHERE treatment = 'olla' AND no_harvest)::int AS "ollaPlotsWithoutHarvest",
+           count(*) FILTER (WHERE treatment = 'surface')::int AS "surfacePlots",
+           COALESCE(sum(area_m2) FILTER (WHERE treatment = 'surface'), 0)::float8 AS "surfaceAreaM2",
+           COALESCE(sum(plant_count) FILTER (WHERE treatment = 'surface'), 0)::int AS "surfacePlants",
+           COALESCE(sum(litres) FILTER (WHERE treatment = 'surface'), 0)::float8 AS "surfaceL",
+           COALESCE(sum(kg) FILTER (WHERE treatment = 'surface'), 0)::float8 AS "surfaceHarvestKg",
+           count(*) FILTER (WHERE treatment = 'surface' AND no_harvest)::int AS "surfacePlotsWithoutHarvest"
+      FROM plot
+     GROUP BY trial_id, block_key
+     ORDER BY trial_id, block_key`,
+
+  /**
+   * As `cohortResultsRawQueries.weeklyVolumes`, from `trial_week_water`: the week's weekday mask is
+   * cut to the season (planting to end or today) here, bit i standing for week_start + i days. $2 = today.
+   */
+  weeklyVolumes: `
+    WITH ${summarisedTrials},
+    spans AS (SELECT id, planting_date, LEAST(COALESCE(end_date, $2::date), $2::date) AS as_of FROM shared),
+    w AS (
+      SELECT ww.trial_id, ww.kind, ww.week_start AS week, sum(ww.litres) AS litres, sum(ww.events) AS events, bit_or(ww.day_mask) AS mask,
+             GREATEST(min(sp.planting_date) - ww.week_start, 0) AS lo, LEAST(min(sp.as_of) - ww.week_start, 6) AS hi
+        FROM trial_week_water ww JOIN spans sp ON sp.id = ww.trial_id
+       GROUP BY ww.trial_id, ww.kind, ww.week_start)
+    SELECT trial_id AS "trialId", kind AS series, week AS "weekStart", (litres / events)::float8 AS "litresPerEvent", events::int AS events,
+           CASE WHEN hi < lo THEN 0 ELSE mask & (((1 << (hi + 1)) - 1) - ((1 << lo) - 1)) END AS "dayMask"
+      FROM w`,
+
+  /** As `cohortResultsRawQueries.progress`, from `trial_week_water` (kinds summed per plot treatment). */
+  progress: `
+    WITH ${summarisedTrials},
+    counted AS (SELECT sh.id FROM shared sh LEFT JOIN trial_exclusions x ON x.cohort_id = $1 AND x.trial_id = sh.id WHERE x.id IS NULL),
+    per_trial AS (
+      SELECT ww.trial_id, ww.week_start AS week, ww.treatment, sum(ww.litres) AS litres
+        FROM trial_week_water ww JOIN counted c ON c.id = ww.trial_id
+       WHERE ww.treatment IN ('olla', 'surface')
+       GROUP BY 1, 2, 3),
+    weekly AS (SELECT week, treatment, sum(litres) AS litres, count(*)::int AS trials FROM per_trial GROUP BY 1, 2)
+    SELECT week AS "weekStart", to_char(week, 'IYYY-"W"IW') AS "isoWeek", treatment,
+           litres::float8 AS litres, (sum(litres) OVER (PARTITION BY treatment ORDER BY week))::float8 AS "cumulativeLitres", trials
+      FROM weekly
+     ORDER BY week, treatment`,
+};
+
+export type CohortResultsQueries = typeof cohortResultsRawQueries;
+
 type TrialRow = Omit<CohortTrialAggregate, 'exclusion'> & { exclusionReason: string | null; exclusionCreatedAt: Date | null; excludedByMe: boolean };
+
+interface ResultsRequest {
+  cohortId: string;
+  userId: string;
+  /** YYYY-MM-DD, the server's today. */
+  today: string;
+  query: CohortResultsQuery;
+}
+
+/**
+ * The cohort's results recomputed from the raw log rows, ignoring the rollups: what the route's
+ * answer must equal (the API test compares them after every kind of write; the benchmark times both).
+ */
+export function recomputeCohortResultsFromRawRows(ds: DataSource, r: ResultsRequest): Promise<CohortResults> {
+  return cohortResultsFrom(ds, cohortResultsRawQueries, r);
+}
+
+async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { cohortId, userId, today, query }: ResultsRequest): Promise<CohortResults> {
+  const [trialRows, blocks, weekly, progress] = await Promise.all([
+    ds.query(q.trials, [cohortId, userId, today]) as Promise<TrialRow[]>,
+    ds.query(q.blocks, [cohortId]) as Promise<BlockAggregate[]>,
+    ds.query(q.weeklyVolumes, [cohortId, today]) as Promise<WeeklyVolumeAggregate[]>,
+    ds.query(q.progress, [cohortId]) as Promise<ProgressAggregate[]>,
+  ]);
+  const trials: CohortTrialAggregate[] = trialRows.map(({ exclusionReason, exclusionCreatedAt, excludedByMe, ...t }) => ({
+    ...t,
+    exclusion:
+      exclusionReason !== null && exclusionCreatedAt !== null
+        ? { reason: exclusionReason, createdAt: exclusionCreatedAt.toISOString(), excludedByMe }
+        : null,
+  }));
+  const options = {
+    method: query.method,
+    confidence: query.confidence,
+    includeSinglePairs: query.includeSinglePairs,
+    excludeFlagged: query.excludeFlagged,
+  };
+  return analyseCohort({ cohortId, asOf: today, trials, blocks, weekly, progress, options });
+}
 
 export function cohortResultsService(ctx: AppContext) {
   return {
     async results(cohortId: string, userId: string, query: CohortResultsQuery): Promise<CohortResults> {
-      const today = ctx.now().toISOString().slice(0, 10);
-      const [trialRows, blocks, weekly, progress] = await Promise.all([
-        ctx.ds.query(cohortResultsQueries.trials, [cohortId, userId, today]) as Promise<TrialRow[]>,
-        ctx.ds.query(cohortResultsQueries.blocks, [cohortId]) as Promise<BlockAggregate[]>,
-        ctx.ds.query(cohortResultsQueries.weeklyVolumes, [cohortId, today]) as Promise<WeeklyVolumeAggregate[]>,
-        ctx.ds.query(cohortResultsQueries.progress, [cohortId]) as Promise<ProgressAggregate[]>,
-      ]);
-      const trials: CohortTrialAggregate[] = trialRows.map(({ exclusionReason, exclusionCreatedAt, excludedByMe, ...t }) => ({
-        ...t,
-        exclusion:
-          exclusionReason !== null && exclusionCreatedAt !== null
-            ? { reason: exclusionReason, createdAt: exclusionCreatedAt.toISOString(), excludedByMe }
-            : null,
-      }));
-      const options = {
-        method: query.method,
-        confidence: query.confidence,
-        includeSinglePairs: query.includeSinglePairs,
-        excludeFlagged: query.excludeFlagged,
-      };
-      return analyseCohort({ cohortId, asOf: today, trials, blocks, weekly, progress, options });
+      const stale = (await ctx.ds.query(cohortResultsQueries.stale, [cohortId])) as { id: string }[];
+      if (stale.length > 0) await refreshTrialRollups(ctx.ds, stale.map((t) => t.id));
+      return cohortResultsFrom(ctx.ds, cohortResultsQueries, { cohortId, userId, today: ctx.now().toISOString().slice(0, 10), query });
     },
 
     /** Leaves a shared trial out of the cohort's pooled results, with the reason. */

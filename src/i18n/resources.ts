@@ -5,7 +5,10 @@
  */
 import type account from '@/locales/en/account.json';
 import type admin from '@/locales/en/admin.json';
+import type analysis from '@/locales/en/analysis.json';
 import type auth from '@/locales/en/auth.json';
+import type charts from '@/locales/en/charts.json';
+import type cohortResults from '@/locales/en/cohortResults.json';
 import type cohorts from '@/locales/en/cohorts.json';
 import type common from '@/locales/en/common.json';
 import type guides from '@/locales/en/guides.json';
@@ -23,4 +26,7 @@ export type enResources = {
   notifications: typeof notifications;
   offline: typeof offline;
   guides: typeof guides;
+  analysis: typeof analysis;
+  charts: typeof charts;
+  cohortResults: typeof cohortResults;
 };

@@ -51,6 +51,9 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
       expect(analysis.responseBytes).toBeGreaterThan(0);
       // The cohort results route is measured when this checkout has it, and says why when it does not.
       expect('routeMs' in f.cohort || 'skipped' in f.cohort).toBe(true);
+      // With the log rollups: the route against its old raw-row SQL, cold and one-trial-changed requests.
+      const cache = measured(f.cohortCache ?? { skipped: 'absent' });
+      expect([cache.routeMs.n, cache.rawSqlMs.n, cache.coldMs.n, cache.oneChangedMs.n].every((k) => k > 0)).toBe(true);
       expect(exported.rows).toBeGreaterThan(0);
       expect(exported.memory.hwmMb).toBeGreaterThan(0);
     }
@@ -71,7 +74,7 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
     const written = JSON.parse(fs.readFileSync(path.join(dir, 'results.json'), 'utf8')) as BenchResults;
     expect(written.table).toEqual(results.table);
     const ids = results.table.map((r) => r.id);
-    for (const id of ['0', '1a', '1b', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '7a', '7b', '7c', '7d']) expect(ids).toContain(id);
+    for (const id of ['0', '1a', '1b', '2c', '2d', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '7a', '7b', '7c', '7d']) expect(ids).toContain(id);
     expect(ids.some((id) => id.startsWith('2'))).toBe(true);
     for (const row of results.table) expect(['pass', 'miss', 'info', 'skipped']).toContain(row.status);
     const md = fs.readFileSync(path.join(dir, 'RESULTS.md'), 'utf8');
