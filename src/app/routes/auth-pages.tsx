@@ -6,30 +6,8 @@ import { Alert } from '@/components/ui/alert';
 import { paths } from '@/config/paths';
 import { useVerifyEmail } from '@/features/auth/api/auth-mutations';
 import { RequestResetForm, ResetPasswordForm } from '@/features/auth/components/password-reset-forms';
-import { SignInForm } from '@/features/auth/components/sign-in-form';
 import { SignUpForm } from '@/features/auth/components/sign-up-form';
 import { safeNext } from '@/lib/safe-next';
-import { SESSION_EXPIRED_FLAG } from '../query-client';
-
-export function SignInPage() {
-  const { t } = useTranslation('auth');
-  const [params] = useSearchParams();
-  const navigate = useNavigate();
-  const expired = params.get('reason') === 'expired';
-  useEffect(() => {
-    sessionStorage.removeItem(SESSION_EXPIRED_FLAG);
-  }, []);
-  return (
-    <PublicLayout title={t(($) => $.signIn.title)} intro={t(($) => $.signIn.intro)}>
-      {expired ? (
-        <Alert tone="warning" className="mb-4">
-          {t(($) => $.signIn.expired)}
-        </Alert>
-      ) : null}
-      <SignInForm onSuccess={() => navigate(safeNext(params.get('next')), { replace: true })} />
-    </PublicLayout>
-  );
-}
 
 export function SignUpPage() {
   const { t } = useTranslation('auth');

@@ -7,9 +7,6 @@ import { paths } from '@/config/paths';
 import { useCurrentUser } from '@/features/auth/api/get-session';
 import { useUnsubscribe } from '@/features/notifications/api/unsubscribe';
 
-/** The client URL of the unsubscribe link in every e-mail (the server writes `${publicUrl}/unsubscribe?token=…`). */
-export const unsubscribePath = '/unsubscribe';
-
 /** Opened from an e-mail's "Stop these e-mails" link: works signed in or not. */
 export function UnsubscribePage() {
   const { t } = useTranslation('notifications');
