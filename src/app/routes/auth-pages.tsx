@@ -1,4 +1,4 @@
-import { useEffect } from 'react';
+import { useEffect, useRef } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { PublicLayout } from '@/components/layout/public-layout';
@@ -61,8 +61,13 @@ export function VerifyEmailPage() {
   const token = params.get('token');
   const verify = useVerifyEmail();
   const { mutate } = verify;
+  // A link works once: send each token once, also when React runs the effect twice (StrictMode in
+  // development), or the second answer ("already used") would replace the first ("confirmed").
+  const sent = useRef<string | null>(null);
   useEffect(() => {
-    if (token) mutate(token);
+    if (!token || sent.current === token) return;
+    sent.current = token;
+    mutate(token);
   }, [token, mutate]);
   return (
     <PublicLayout title={t(($) => $.verify.title)}>

@@ -1,4 +1,4 @@
-import { useEffect } from 'react';
+import { useEffect, useRef } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Link, useSearchParams } from 'react-router-dom';
 import { PublicLayout } from '@/components/layout/public-layout';
@@ -15,8 +15,12 @@ export function UnsubscribePage() {
   const user = useCurrentUser();
   const stop = useUnsubscribe();
   const { mutate } = stop;
+  // Once per token, also when React runs the effect twice (StrictMode in development).
+  const sent = useRef<string | null>(null);
   useEffect(() => {
-    if (token) mutate(token);
+    if (!token || sent.current === token) return;
+    sent.current = token;
+    mutate(token);
   }, [token, mutate]);
   return (
     <PublicLayout title={t(($) => $.unsubscribe.title)}>
