@@ -1,6 +1,5 @@
 import { z } from 'zod';
-
-const parse = (text: string) => Number(text.trim().replace(',', '.'));
+import { parseDecimal as parse } from '@/lib/parse-number';
 
 /**
  * A number typed into a text box: a decimal comma is accepted, an empty box and text that is
