@@ -105,7 +105,13 @@ export function importService(ctx: AppContext) {
           const plotId = plotByLabel.get(label);
           delete input.plotLabel;
           if (!plotId) {
-            errors.push({ line, column: 'plot', reason: `No plot "${String(raw.plotLabel ?? '')}" in this trial (plots: ${plots.map((p) => p.label).join(', ')}).` });
+            errors.push({
+              line,
+              column: 'plot',
+              reason: `No plot "${String(raw.plotLabel ?? '')}" in this trial (plots: ${plots.map((p) => p.label).join(', ')}).`,
+              code: 'unknownPlot',
+              params: { plot: String(raw.plotLabel ?? ''), plots: plots.map((p) => p.label).join(', ') },
+            });
             return;
           }
           input.plotId = plotId;
@@ -119,7 +125,13 @@ export function importService(ctx: AppContext) {
         const when = String(value[timeField[kind]]);
         const day = when.length > 10 ? new Date(when).toISOString().slice(0, 10) : when;
         if (day < trial.planting_date || day > lastDay) {
-          errors.push({ line, column: timeField[kind], reason: `${day} is outside this trial (planted ${trial.planting_date}${trial.end_date ? `, ends ${trial.end_date}` : ''}).` });
+          errors.push({
+            line,
+            column: timeField[kind],
+            reason: `${day} is outside this trial (planted ${trial.planting_date}${trial.end_date ? `, ends ${trial.end_date}` : ''}).`,
+            code: 'outsideTrial',
+            params: { day, planted: trial.planting_date, ends: trial.end_date ?? '' },
+          });
           return;
         }
         valid.push({ ...value, line });
