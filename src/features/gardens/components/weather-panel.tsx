@@ -110,7 +110,7 @@ export function WeatherPanel({ gardenId, from, to }: { gardenId: string; from?: 
       </form>
       {weather.isPending ? <p role="status">{t(($) => $.weather.loading)}</p> : null}
       {rows.length ? (
-        <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+        <div className="relative overflow-x-auto rounded-card border border-sand-200 bg-white">
           <table className="w-full text-sm">
             <caption className="sr-only">{t(($) => $.weather.title)}</caption>
             <thead className="bg-sand-100 text-left">

@@ -349,7 +349,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               ) : (
                 <Alert tone="success">{t(($) => $.allReady, { rows: formatNumber(normalised.records.length, 0) })}</Alert>
               )}
-              <div className="overflow-x-auto">
+              <div className="relative overflow-x-auto">
                 <table className="w-full text-sm">
                   <caption className="text-left font-semibold">{t(($) => $.preview)}</caption>
                   <thead className="bg-sand-100 text-left">

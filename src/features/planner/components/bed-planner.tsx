@@ -154,7 +154,7 @@ export function BedPlanner() {
                 <details className="text-sm">
                   <summary className="inline-flex min-h-11 cursor-pointer items-center text-terracotta-700 underline">{t(($) => $.bed.whereToDig)}</summary>
                   <p className="text-ink-muted">{t(($) => $.bed.measured)}</p>
-                  <div className="mt-2 overflow-x-auto">
+                  <div className="relative mt-2 overflow-x-auto">
                     <table className="text-sm">
                       <thead>
                         <tr>
