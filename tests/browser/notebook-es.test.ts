@@ -129,7 +129,10 @@ describe('the notebook in Spanish', () => {
     await page.getByText('Guardado: 1 registro.').waitFor();
     const refills = await t.ds.query(`SELECT volume_l FROM water_events WHERE trial_id = $1 AND kind = 'olla_refill'`, [trial.id]);
     expect(refills.map((r: { volume_l: string }) => Number(r.volume_l))).toEqual([8.5]);
-    await page.getByText(/último rellenado hoy/).first().waitFor();
+    await page
+      .getByText(/último rellenado hoy/)
+      .first()
+      .waitFor();
 
     // The record in the trial's table, with a decimal comma and the kind in Spanish.
     await page.getByRole('link', { name: 'Tomates de la acequia 2026' }).click();

@@ -10,6 +10,7 @@ import { InputField, SelectField, TextareaField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { decimalOrUndefined } from '@/lib/parse-number';
 import { useUnits } from '@/lib/units';
+import { useGardenMessages } from './schema-messages';
 
 /** The form holds elevation in the reader's unit; the schema's SI value is built on submit. Decimals may be typed with a comma. */
 const makeFormSchema = (required: string, notNumber: string) =>
@@ -23,6 +24,7 @@ type FormValues = z.input<ReturnType<typeof makeFormSchema>>;
 export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden; onSubmit: (input: CreateGardenInput) => Promise<unknown>; submitLabel: string }) {
   const units = useUnits();
   const { t } = useTranslation('gardens');
+  const m = useGardenMessages();
   const formSchema = useMemo(() => makeFormSchema(t(($) => $.form.elevationRequired), t(($) => $.form.notANumber)), [t]);
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<FormValues>({
@@ -44,17 +46,17 @@ export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden;
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-label={submitLabel}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      <InputField label={t(($) => $.form.name)} {...register('name')} error={e.name?.message} />
+      <InputField label={t(($) => $.form.name)} {...register('name')} error={m(e.name?.message)} />
       <div className="grid gap-4 sm:grid-cols-3">
-        <InputField label={t(($) => $.form.latitude)} inputMode="decimal" {...register('latitudeDeg', { setValueAs: decimalOrUndefined })} error={e.latitudeDeg?.message} />
-        <InputField label={t(($) => $.form.longitude)} inputMode="decimal" {...register('longitudeDeg', { setValueAs: decimalOrUndefined })} error={e.longitudeDeg?.message} />
-        <InputField label={t(($) => $.form.elevation, { unit: units.label('length') })} inputMode="decimal" {...register('elevationM', { setValueAs: decimalOrUndefined })} error={e.elevationM?.message} />
+        <InputField label={t(($) => $.form.latitude)} inputMode="decimal" {...register('latitudeDeg', { setValueAs: decimalOrUndefined })} error={m(e.latitudeDeg?.message)} />
+        <InputField label={t(($) => $.form.longitude)} inputMode="decimal" {...register('longitudeDeg', { setValueAs: decimalOrUndefined })} error={m(e.longitudeDeg?.message)} />
+        <InputField label={t(($) => $.form.elevation, { unit: units.label('length') })} inputMode="decimal" {...register('elevationM', { setValueAs: decimalOrUndefined })} error={m(e.elevationM?.message)} />
       </div>
       <p className="text-sm text-ink-muted">
         {t(($) => $.form.privacy)}
       </p>
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label={t(($) => $.form.soil)} {...register('soilTexture')} error={e.soilTexture?.message}>
+        <SelectField label={t(($) => $.form.soil)} {...register('soilTexture')} error={m(e.soilTexture?.message)}>
           {soilTextures.map((s) => (
             <option key={s} value={s}>
               {t(($) => $.soil[s])}
@@ -66,7 +68,7 @@ export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden;
           <span className="text-sm">{t(($) => $.form.coastal)}</span>
         </label>
       </div>
-      <TextareaField label={t(($) => $.form.notes)} {...register('notes')} error={e.notes?.message} />
+      <TextareaField label={t(($) => $.form.notes)} {...register('notes')} error={m(e.notes?.message)} />
       <Button type="submit" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? t(($) => $.form.saving) : submitLabel}
       </Button>

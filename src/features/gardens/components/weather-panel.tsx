@@ -12,6 +12,7 @@ import { formatDate, formatNumber } from '@/lib/format';
 import { decimalOrUndefined, parseDecimal } from '@/lib/parse-number';
 import { useUnits } from '@/lib/units';
 import { useDeleteWeatherDay, useSaveWeatherDay, useWeather } from '../api/weather';
+import { useGardenMessages } from './schema-messages';
 
 /** Optional boxes: empty means not measured; "2,5" and "2.5" are both read (parseDecimal). */
 const optionalNumber = (notNumber: string) =>
@@ -38,6 +39,7 @@ export function WeatherPanel({ gardenId, from, to }: { gardenId: string; from?: 
   const units = useUnits();
   const { t } = useTranslation('gardens');
   const { t: tc } = useTranslation('common');
+  const m = useGardenMessages();
   const formSchema = useMemo(
     () =>
       makeFormSchema({
@@ -91,14 +93,14 @@ export function WeatherPanel({ gardenId, from, to }: { gardenId: string; from?: 
       ) : null}
       <form onSubmit={submit} noValidate className="grid gap-3 rounded-card border border-sand-200 bg-white p-4 sm:grid-cols-4" aria-label={t(($) => $.weather.formLabel)}>
         {formError ? <Alert tone="error" className="sm:col-span-4">{formError}</Alert> : null}
-        <InputField label={t(($) => $.weather.day)} type="date" {...register('day')} error={e.day?.message} />
-        <InputField label={t(($) => $.weather.min, { unit: units.label('temperature') })} inputMode="decimal" {...register('tMinC', { setValueAs: decimalOrUndefined })} error={e.tMinC?.message} />
-        <InputField label={t(($) => $.weather.max, { unit: units.label('temperature') })} inputMode="decimal" {...register('tMaxC', { setValueAs: decimalOrUndefined })} error={e.tMaxC?.message} />
-        <InputField label={t(($) => $.weather.rain, { unit: units.label('length-small') })} inputMode="decimal" {...register('rainMm')} error={e.rainMm?.message} />
-        <InputField label={t(($) => $.weather.rhMin)} inputMode="decimal" {...register('rhMinPct')} error={e.rhMinPct?.message} />
-        <InputField label={t(($) => $.weather.rhMax)} inputMode="decimal" {...register('rhMaxPct')} error={e.rhMaxPct?.message} />
-        <InputField label={t(($) => $.weather.wind)} inputMode="decimal" {...register('windSpeedMs')} error={e.windSpeedMs?.message} />
-        <InputField label={t(($) => $.weather.sunshine)} inputMode="decimal" {...register('sunshineHours')} error={e.sunshineHours?.message} />
+        <InputField label={t(($) => $.weather.day)} type="date" {...register('day')} error={m(e.day?.message)} />
+        <InputField label={t(($) => $.weather.min, { unit: units.label('temperature') })} inputMode="decimal" {...register('tMinC', { setValueAs: decimalOrUndefined })} error={m(e.tMinC?.message)} />
+        <InputField label={t(($) => $.weather.max, { unit: units.label('temperature') })} inputMode="decimal" {...register('tMaxC', { setValueAs: decimalOrUndefined })} error={m(e.tMaxC?.message)} />
+        <InputField label={t(($) => $.weather.rain, { unit: units.label('length-small') })} inputMode="decimal" {...register('rainMm')} error={m(e.rainMm?.message)} />
+        <InputField label={t(($) => $.weather.rhMin)} inputMode="decimal" {...register('rhMinPct')} error={m(e.rhMinPct?.message)} />
+        <InputField label={t(($) => $.weather.rhMax)} inputMode="decimal" {...register('rhMaxPct')} error={m(e.rhMaxPct?.message)} />
+        <InputField label={t(($) => $.weather.wind)} inputMode="decimal" {...register('windSpeedMs')} error={m(e.windSpeedMs?.message)} />
+        <InputField label={t(($) => $.weather.sunshine)} inputMode="decimal" {...register('sunshineHours')} error={m(e.sunshineHours?.message)} />
         <label className="flex items-center gap-2 text-sm sm:col-span-2">
           <input type="checkbox" className="size-4 accent-terracotta-600" {...register('forecast')} /> {t(($) => $.weather.forecastCheck)}
         </label>

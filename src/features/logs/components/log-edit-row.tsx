@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import { ApiRequestError } from '@/lib/api-client';
 import { parseDecimal } from '@/lib/parse-number';
 import type { LogColumnHeader } from './log-columns';
+import { useLogMessages } from './schema-messages';
 import { useUnits } from '@/lib/units';
 import type { LogRow } from '../api/get-logs';
 import { useUpdateLog } from '../api/log-mutations';
@@ -30,6 +31,7 @@ export function LogEditRow({ trialId, kind, row, colSpan, onDone }: { trialId: s
   const units = useUnits();
   const { t } = useTranslation('logs');
   const { t: tc } = useTranslation('common');
+  const m = useLogMessages();
   const update = useUpdateLog(trialId, kind);
   const fields = editable[kind];
   const [values, setValues] = useState<Record<string, string>>(() =>
@@ -85,7 +87,7 @@ export function LogEditRow({ trialId, kind, row, colSpan, onDone }: { trialId: s
                 aria-invalid={errors[f.field] ? true : undefined}
                 onChange={(e) => setValues((v) => ({ ...v, [f.field]: e.target.value }))}
               />
-              {errors[f.field] ? <span className="block text-xs text-red-800">{errors[f.field]}</span> : null}
+              {errors[f.field] ? <span className="block text-xs text-red-800">{m(errors[f.field])}</span> : null}
             </label>
           ))}
           <Button size="sm" onClick={() => void save()} disabled={update.isPending}>

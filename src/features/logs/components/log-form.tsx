@@ -12,6 +12,7 @@ import { formatNumber } from '@/lib/format';
 import { parseDecimal } from '@/lib/parse-number';
 import { useUnits } from '@/lib/units';
 import { useCreateLog } from '../api/log-mutations';
+import { useLogMessages } from './schema-messages';
 
 function localNow(): string {
   const d = new Date();
@@ -31,6 +32,7 @@ function toIso(local: string): string {
 export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKind; plots: Plot[] }) {
   const units = useUnits();
   const { t } = useTranslation('logs');
+  const m = useLogMessages();
   const create = useCreateLog(trialId, kind);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
@@ -102,7 +104,7 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
   };
 
   const plotSelect = (
-    <SelectField label={t(($) => $.form.plot)} name="plotId" error={errors.plotId} defaultValue={plots[0]?.id}>
+    <SelectField label={t(($) => $.form.plot)} name="plotId" error={m(errors.plotId)} defaultValue={plots[0]?.id}>
       {kind === 'observations' ? <option value="">{t(($) => $.form.wholeTrial)}</option> : null}
       {plots.map((p) => (
         <option key={p.id} value={p.id}>
@@ -121,18 +123,18 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
       ) : null}
       {plotSelect}
       {kind === 'harvests' ? (
-        <InputField label={t(($) => $.form.dayPicked)} type="date" name="day" defaultValue={new Date().toISOString().slice(0, 10)} error={errors.harvestedOn} />
+        <InputField label={t(($) => $.form.dayPicked)} type="date" name="day" defaultValue={new Date().toISOString().slice(0, 10)} error={m(errors.harvestedOn)} />
       ) : (
-        <InputField label={t(($) => $.form.when)} type="datetime-local" name="when" defaultValue={localNow()} error={errors.occurredAt ?? errors.takenAt ?? errors.observedAt} />
+        <InputField label={t(($) => $.form.when)} type="datetime-local" name="when" defaultValue={localNow()} error={m(errors.occurredAt ?? errors.takenAt ?? errors.observedAt)} />
       )}
       {kind === 'water-events' ? (
         <>
-          <SelectField label={t(($) => $.form.kind)} value={waterKind} onChange={(e) => setWaterKind(e.target.value as WaterKind)} error={errors.kind}>
+          <SelectField label={t(($) => $.form.kind)} value={waterKind} onChange={(e) => setWaterKind(e.target.value as WaterKind)} error={m(errors.kind)}>
             <option value="olla_refill">{t(($) => $.waterKinds.olla_refill)}</option>
             <option value="surface">{t(($) => $.waterKinds.surface)}</option>
           </SelectField>
-          <InputField label={t(($) => $.form.volume, { unit: units.label('volume') })} name="volume" inputMode="decimal" error={errors.volumeL} />
-          <SelectField label={t(($) => $.form.source)} value={source} onChange={(e) => setSource(e.target.value as WaterSource)} error={errors.source}>
+          <InputField label={t(($) => $.form.volume, { unit: units.label('volume') })} name="volume" inputMode="decimal" error={m(errors.volumeL)} />
+          <SelectField label={t(($) => $.form.source)} value={source} onChange={(e) => setSource(e.target.value as WaterSource)} error={m(errors.source)}>
             {(['mains', 'rainwater', 'well', 'greywater', 'other'] as const).map((s) => (
               <option key={s} value={s}>
                 {t(($) => $.sources[s])}
@@ -150,30 +152,30 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
       ) : null}
       {kind === 'moisture-readings' ? (
         <>
-          <SelectField label={t(($) => $.form.method)} value={method} onChange={(e) => setMethod(e.target.value as MoistureMethod)} error={errors.method}>
+          <SelectField label={t(($) => $.form.method)} value={method} onChange={(e) => setMethod(e.target.value as MoistureMethod)} error={m(errors.method)}>
             {(['vwc', 'tensiometer', 'probe_index'] as const).map((m) => (
               <option key={m} value={m}>
                 {t(($) => $.methods[m])}
               </option>
             ))}
           </SelectField>
-          <InputField label={t(($) => $.form.depth)} name="depthCm" inputMode="decimal" defaultValue="15" error={errors.depthCm} />
+          <InputField label={t(($) => $.form.depth)} name="depthCm" inputMode="decimal" defaultValue="15" error={m(errors.depthCm)} />
           <InputField
             label={t(($) => $.form.reading, { unit: t(($) => $.units[range.unit as '%' | 'kPa' | 'index']) })}
             name="value"
             inputMode="decimal"
-            hint={t(($) => $.form.range, { min: formatNumber(range.min, 0), max: formatNumber(range.max, 0), unit: t(($) => $.units[range.unit as '%' | 'kPa' | 'index']) })} error={errors.value} />
+            hint={t(($) => $.form.range, { min: formatNumber(range.min, 0), max: formatNumber(range.max, 0), unit: t(($) => $.units[range.unit as '%' | 'kPa' | 'index']) })} error={m(errors.value)} />
         </>
       ) : null}
       {kind === 'harvests' ? (
         <>
-          <InputField label={t(($) => $.form.fresh, { unit: units.label('mass') })} name="fresh" inputMode="decimal" error={errors.freshKg} />
-          <InputField label={t(($) => $.form.marketable, { unit: units.label('mass') })} name="marketable" inputMode="decimal" error={errors.marketableKg} />
-          <InputField label={t(($) => $.form.count)} name="count" inputMode="numeric" error={errors.count} />
+          <InputField label={t(($) => $.form.fresh, { unit: units.label('mass') })} name="fresh" inputMode="decimal" error={m(errors.freshKg)} />
+          <InputField label={t(($) => $.form.marketable, { unit: units.label('mass') })} name="marketable" inputMode="decimal" error={m(errors.marketableKg)} />
+          <InputField label={t(($) => $.form.count)} name="count" inputMode="numeric" error={m(errors.count)} />
           <InputField label={t(($) => $.form.note)} name="notes" className="sm:col-span-3" />
         </>
       ) : null}
-      {kind === 'observations' ? <TextareaField label={t(($) => $.form.whatYouSaw)} name="text" className="sm:col-span-4" error={errors.text} /> : null}
+      {kind === 'observations' ? <TextareaField label={t(($) => $.form.whatYouSaw)} name="text" className="sm:col-span-4" error={m(errors.text)} /> : null}
       <div className="sm:col-span-4">
         <Button type="submit" disabled={create.isPending}>
           {create.isPending ? t(($) => $.form.saving) : t(($) => $.form.save)}

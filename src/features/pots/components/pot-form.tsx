@@ -13,6 +13,7 @@ import { potFormDefaults, potFormSchema, type PotFormValues } from './pot-form-s
 import { coneDegrees, coneExplanation } from './pot-labels';
 import { PlotOptions } from './plot-options';
 import type { PlotChoice, RenderCaution } from './types';
+import { usePotMessages } from './schema-messages';
 
 interface PotFormProps {
   pot?: Pot;
@@ -28,6 +29,7 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
   const units = useUnits();
   const { t } = useTranslation('pots');
   const { t: tc } = useTranslation('common');
+  const m = usePotMessages();
   const schema = useMemo(() => potFormSchema(units, t), [units, t]);
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, watch, formState } = useForm<PotFormValues, unknown, CreatePotInput>({
@@ -64,14 +66,14 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
     <form onSubmit={submit} noValidate className="space-y-4" aria-label={submitLabel}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        <InputField id={`${idPrefix}-label`} label={t(($) => $.form.label)} placeholder={t(($) => $.form.labelPlaceholder)} autoComplete="off" {...register('label')} error={e.label?.message} />
+        <InputField id={`${idPrefix}-label`} label={t(($) => $.form.label)} placeholder={t(($) => $.form.labelPlaceholder)} autoComplete="off" {...register('label')} error={m(e.label?.message)} />
         <InputField
           id={`${idPrefix}-capacity`}
           label={t(($) => $.form.capacity, { unit: units.label('volume') })}
           inputMode="decimal"
           className="text-right"
           {...register('capacityL')}
-          error={e.capacityL?.message}
+          error={m(e.capacityL?.message)}
         />
         <InputField
           id={`${idPrefix}-widest`}
@@ -80,7 +82,7 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
           className="text-right"
           hint={t(($) => $.form.widestHint)}
           {...register('widestDiameterCm')}
-          error={e.widestDiameterCm?.message}
+          error={m(e.widestDiameterCm?.message)}
         />
         <InputField
           id={`${idPrefix}-neck`}
@@ -88,24 +90,24 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
           inputMode="decimal"
           className="text-right"
           {...register('neckDiameterCm')}
-          error={e.neckDiameterCm?.message}
+          error={m(e.neckDiameterCm?.message)}
         />
-        <InputField id={`${idPrefix}-height`} label={t(($) => $.form.height, { unit: len })} inputMode="decimal" className="text-right" {...register('heightCm')} error={e.heightCm?.message} />
-        <SelectField id={`${idPrefix}-shape`} label={t(($) => $.form.shape)} {...register('shape')} error={e.shape?.message}>
+        <InputField id={`${idPrefix}-height`} label={t(($) => $.form.height, { unit: len })} inputMode="decimal" className="text-right" {...register('heightCm')} error={m(e.heightCm?.message)} />
+        <SelectField id={`${idPrefix}-shape`} label={t(($) => $.form.shape)} {...register('shape')} error={m(e.shape?.message)}>
           {potShapeSchema.options.map((s) => (
             <option key={s} value={s}>
               {t(($) => $.shapes[s])}
             </option>
           ))}
         </SelectField>
-        <SelectField id={`${idPrefix}-make`} label={t(($) => $.form.make)} {...register('make')} error={e.make?.message}>
+        <SelectField id={`${idPrefix}-make`} label={t(($) => $.form.make)} {...register('make')} error={m(e.make?.message)}>
           {potMakeSchema.options.map((m) => (
             <option key={m} value={m}>
               {t(($) => $.makes[m])}
             </option>
           ))}
         </SelectField>
-        <SelectField id={`${idPrefix}-clay`} label={t(($) => $.form.clay)} {...register('clayBody')} error={e.clayBody?.message}>
+        <SelectField id={`${idPrefix}-clay`} label={t(($) => $.form.clay)} {...register('clayBody')} error={m(e.clayBody?.message)}>
           {clayBodySchema.options.map((c) => (
             <option key={c} value={c}>
               {t(($) => $.clays[c])}
@@ -116,7 +118,7 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
           id={`${idPrefix}-cone`}
           label={t(($) => $.form.cone)}
           {...register('firingCone')}
-          error={e.firingCone?.message}
+          error={m(e.firingCone?.message)}
           hint={cone ? coneExplanation(cone, units.system, t) : t(($) => $.form.coneHint)}
         >
           <option value="">{t(($) => $.form.coneUnknown)}</option>
@@ -126,11 +128,11 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
             </option>
           ))}
         </SelectField>
-        <InputField id={`${idPrefix}-installed`} type="date" label={t(($) => $.form.installed)} {...register('installedOn')} error={e.installedOn?.message} />
-        <SelectField id={`${idPrefix}-plot`} label={t(($) => $.form.where)} {...register('plotId')} error={e.plotId?.message}>
+        <InputField id={`${idPrefix}-installed`} type="date" label={t(($) => $.form.installed)} {...register('installedOn')} error={m(e.installedOn?.message)} />
+        <SelectField id={`${idPrefix}-plot`} label={t(($) => $.form.where)} {...register('plotId')} error={m(e.plotId?.message)}>
           <PlotOptions choices={plotChoices} current={pot} />
         </SelectField>
-        <SelectField id={`${idPrefix}-condition`} label={t(($) => $.form.condition)} {...register('condition')} error={e.condition?.message}>
+        <SelectField id={`${idPrefix}-condition`} label={t(($) => $.form.condition)} {...register('condition')} error={m(e.condition?.message)}>
           {potConditionSchema.options.map((k) => (
             <option key={k} value={k}>
               {t(($) => $.conditions[k])}
@@ -138,7 +140,7 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
           ))}
         </SelectField>
       </div>
-      <TextareaField id={`${idPrefix}-notes`} label={t(($) => $.form.notes)} placeholder={t(($) => $.form.notesPlaceholder)} {...register('notes')} error={e.notes?.message} />
+      <TextareaField id={`${idPrefix}-notes`} label={t(($) => $.form.notes)} placeholder={t(($) => $.form.notesPlaceholder)} {...register('notes')} error={m(e.notes?.message)} />
       {plot && plot.treatment && plot.treatment !== 'olla' ? (
         <Alert tone="warning">
           {t(($) => $.form.otherTreatment, { plot: plot.label, treatment: plot.treatment === 'surface' ? t(($) => $.treatments.surface) : plot.treatment })}

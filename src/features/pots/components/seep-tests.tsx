@@ -17,6 +17,7 @@ import { useUnits } from '@/lib/units';
 import { useCreateSeepTest } from '../api/create-seep-test';
 import { useDeleteSeepTest } from '../api/delete-seep-test';
 import { digits, seepTestFormSchema, type SeepTestFormValues } from './pot-form-schema';
+import { usePotMessages } from './schema-messages';
 
 type Units = ReturnType<typeof useUnits>;
 
@@ -130,6 +131,7 @@ function AddSeepTestForm({ pot, units }: { pot: Pot; units: Units }) {
   const { t } = useTranslation('pots');
   const create = useCreateSeepTest(pot.id);
   const schema = useMemo(() => seepTestFormSchema(units, t), [units, t]);
+  const m = usePotMessages();
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
   const defaults: SeepTestFormValues = { testedOn: today(), setting: pot.plotId ? 'in_bed' : 'air', litresLost: '', hours: '24', notes: '' };
@@ -156,8 +158,8 @@ function AddSeepTestForm({ pot, units }: { pot: Pot; units: Units }) {
       <p className="text-sm text-ink-muted">{t(($) => $.seep.howTo)}</p>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <InputField id={`${p}-date`} type="date" label={t(($) => $.seep.testDate)} {...register('testedOn')} error={e.testedOn?.message} />
-        <SelectField id={`${p}-setting`} label={t(($) => $.seep.setting)} {...register('setting')} error={e.setting?.message}>
+        <InputField id={`${p}-date`} type="date" label={t(($) => $.seep.testDate)} {...register('testedOn')} error={m(e.testedOn?.message)} />
+        <SelectField id={`${p}-setting`} label={t(($) => $.seep.setting)} {...register('setting')} error={m(e.setting?.message)}>
           {seepSettingSchema.options.map((s) => (
             <option key={s} value={s}>
               {t(($) => $.seepSettings[s])}
@@ -170,11 +172,11 @@ function AddSeepTestForm({ pot, units }: { pot: Pot; units: Units }) {
           inputMode="decimal"
           className="text-right"
           {...register('litresLost')}
-          error={e.litresLost?.message}
+          error={m(e.litresLost?.message)}
         />
-        <InputField id={`${p}-hours`} label={t(($) => $.seep.hours)} inputMode="decimal" className="text-right" {...register('hours')} error={e.hours?.message} />
+        <InputField id={`${p}-hours`} label={t(($) => $.seep.hours)} inputMode="decimal" className="text-right" {...register('hours')} error={m(e.hours?.message)} />
       </div>
-      <InputField id={`${p}-notes`} label={t(($) => $.seep.notes)} {...register('notes')} error={e.notes?.message} />
+      <InputField id={`${p}-notes`} label={t(($) => $.seep.notes)} {...register('notes')} error={m(e.notes?.message)} />
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" size="lg" disabled={formState.isSubmitting}>
           {formState.isSubmitting ? t(($) => $.form.saving) : t(($) => $.seep.save)}

@@ -17,6 +17,7 @@ import { useUnits } from '@/lib/units';
 import { cn } from '@/lib/utils';
 import { usePlots } from '../api/get-plots';
 import { useCreatePlot, useDeletePlot, useRandomise } from '../api/trial-mutations';
+import { useTrialMessages } from './schema-messages';
 
 const makeFormSchema = (m: { label: string; pair: string; area: string; areaPositive: string; plants: string }) =>
   z.object({
@@ -42,6 +43,7 @@ export function PlotsPanel({ trial }: { trial: Trial }) {
   const units = useUnits();
   const { t } = useTranslation('trials');
   const { t: tc } = useTranslation('common');
+  const m = useTrialMessages();
   const formSchema = useMemo(
     () =>
       makeFormSchema({
@@ -136,10 +138,10 @@ export function PlotsPanel({ trial }: { trial: Trial }) {
         <form onSubmit={submit} noValidate className="grid gap-3 rounded-card border border-sand-200 bg-white p-4 sm:grid-cols-4" aria-label={t(($) => $.plots.add)}>
           <h3 className="text-base sm:col-span-4">{t(($) => $.plots.add)}</h3>
           {formError ? <Alert tone="error" className="sm:col-span-4">{formError}</Alert> : null}
-          <InputField label={t(($) => $.plots.label)} placeholder="A1" {...register('label')} error={e.label?.message} />
-          <InputField label={t(($) => $.plots.pairField)} placeholder="A" {...register('blockKey')} error={e.blockKey?.message} />
-          <InputField label={t(($) => $.plots.area, { unit: units.label('area') })} inputMode="decimal" {...register('area', { setValueAs: decimalOrUndefined })} error={e.area?.message} />
-          <InputField label={t(($) => $.plots.plantsField)} inputMode="numeric" {...register('plantCount', { setValueAs: decimalOrUndefined })} error={e.plantCount?.message} />
+          <InputField label={t(($) => $.plots.label)} placeholder="A1" {...register('label')} error={m(e.label?.message)} />
+          <InputField label={t(($) => $.plots.pairField)} placeholder="A" {...register('blockKey')} error={m(e.blockKey?.message)} />
+          <InputField label={t(($) => $.plots.area, { unit: units.label('area') })} inputMode="decimal" {...register('area', { setValueAs: decimalOrUndefined })} error={m(e.area?.message)} />
+          <InputField label={t(($) => $.plots.plantsField)} inputMode="numeric" {...register('plantCount', { setValueAs: decimalOrUndefined })} error={m(e.plantCount?.message)} />
           <SelectField label={t(($) => $.plots.setting)} {...register('setting')}>
             {plotSettingSchema.options.map((k) => (
               <option key={k} value={k}>
