@@ -23,8 +23,8 @@ async function fitsTheScreen(name: string) {
   const widths = await page.evaluate(() => {
     const client = document.documentElement.clientWidth;
     // The innermost elements that stick out, to say what is too wide.
-    const out = [...document.querySelectorAll('body *')]
-      .filter((el) => el.getBoundingClientRect().right > client + 1 && ![...el.children].some((c) => c.getBoundingClientRect().right > client + 1))
+    const out = Array.from(document.querySelectorAll('body *'))
+      .filter((el) => el.getBoundingClientRect().right > client + 1 && !Array.from(el.children).some((c) => c.getBoundingClientRect().right > client + 1))
       .slice(0, 5)
       .map((el) => `${el.tagName.toLowerCase()}.${el.className} "${(el.textContent ?? '').trim().slice(0, 40)}"`);
     return { scroll: document.documentElement.scrollWidth, client, out };

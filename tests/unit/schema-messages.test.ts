@@ -6,10 +6,10 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { schemaMessageKeys as gardens } from '@/features/gardens/components/schema-messages';
-import { schemaMessageKeys as logs } from '@/features/logs/components/schema-messages';
-import { schemaMessageKeys as pots } from '@/features/pots/components/schema-messages';
-import { schemaMessageKeys as trials } from '@/features/trials/components/schema-messages';
+import { schemaMessageKeys as gardens } from '@/features/gardens/components/schema-message-keys';
+import { schemaMessageKeys as logs } from '@/features/logs/components/schema-message-keys';
+import { schemaMessageKeys as pots } from '@/features/pots/components/schema-message-keys';
+import { schemaMessageKeys as trials } from '@/features/trials/components/schema-message-keys';
 
 const dir = path.resolve(__dirname, '../../shared/schemas');
 const sharedSource = fs
