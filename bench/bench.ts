@@ -28,9 +28,17 @@ import { SessionClient } from './lib/session-client';
 import { BENCH_PASSWORD, benchEmails, loadPhase, planScenario, type LoadStep, type ScenarioIds, type ScenarioPlan } from './lib/scenario';
 import { r3, summarise } from './lib/stats';
 
+/** The figures `--only` can select; figure 7 (growth) follows from analysis, cohort and export. */
+export const FIGURE_NAMES = ['analysis', 'cohort', 'export', 'writes', 'import', 'client'] as const;
+export type FigureName = (typeof FIGURE_NAMES)[number];
+/** The figures that need the invented scenario in the database (all but the client). */
+const SCENARIO_FIGURES: readonly FigureName[] = ['analysis', 'cohort', 'export', 'writes', 'import'];
+
 export interface BenchOptions {
   scale: number;
   skipBrowser: boolean;
+  /** Measure only these figures (the others are reported as skipped); the scenario is loaded only when one of them needs it. */
+  only?: FigureName[];
   /** Where results.json and RESULTS.md go. */
   outDir: string;
   /** Scratch space (built client, Chromium profile, S3 fake, query plans); git-ignored. */
@@ -76,16 +84,31 @@ export interface Skipped {
 }
 
 export interface PhaseFigures {
-  analysis: RouteFigure;
+  analysis: RouteFigure | Skipped;
   cohort: RouteFigure | Skipped;
-  export: ExportFigure;
+  export: ExportFigure | Skipped;
 }
 
 /** The SQL statements one request sends (recorded on the in-process app), against what the bare side sends. */
 export interface RoundTrips {
-  analysis: { route: string[]; bare: number };
+  analysis: { route: string[]; bare: number } | Skipped;
   cohort: { route: string[]; bare: number } | Skipped;
-  write: { route: string[]; bare: number };
+  write: { route: string[]; bare: number } | Skipped;
+}
+
+export interface ScenarioSummary {
+  plan: ScenarioPlan;
+  half: PhaseCounts;
+  full: PhaseCounts;
+  load: { phases: { phase: number; seconds: number; steps: (LoadStep & { rowsPerSecond: number })[] }[]; analyzeSeconds: number[]; totalRows: number; totalSeconds: number; rowsPerSecond: number };
+}
+
+export const isSkipped = (v: unknown): v is Skipped => typeof v === 'object' && v !== null && 'skipped' in v;
+
+/** The command line that reproduces a run with these options. */
+export function benchCommand(o: Pick<BenchOptions, 'scale' | 'skipBrowser' | 'only'>): string {
+  const args = [o.scale !== 1 ? `--scale ${o.scale}` : '', o.skipBrowser ? '--skip-browser' : '', o.only ? `--only ${o.only.join(',')}` : ''].filter(Boolean);
+  return `npm run bench${args.length ? ` -- ${args.join(' ')}` : ''}`;
 }
 
 export interface BenchResults {
@@ -93,17 +116,12 @@ export interface BenchResults {
   command: string;
   durationSeconds: number;
   environment: Record<string, string | number | boolean>;
-  scenario: {
-    plan: ScenarioPlan;
-    half: PhaseCounts;
-    full: PhaseCounts;
-    load: { phases: { phase: number; seconds: number; steps: (LoadStep & { rowsPerSecond: number })[] }[]; analyzeSeconds: number[]; totalRows: number; totalSeconds: number; rowsPerSecond: number };
-  };
+  scenario: ScenarioSummary | Skipped;
   figures: {
     half: PhaseFigures;
     full: PhaseFigures;
-    writes: WritesFigure;
-    import: ImportFigure;
+    writes: WritesFigure | Skipped;
+    import: ImportFigure | Skipped;
     client: ClientFigure | Skipped;
   };
   roundTrips: RoundTrips;
@@ -170,6 +188,9 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
   // Half-size exports are quick, so they get more runs (their medians feed the growth figure).
   const exportReps = { half: o.scale >= 0.1 ? 5 : 1, full: o.scale >= 0.1 ? 3 : 1 };
   const today = () => new Date().toISOString().slice(0, 10);
+  const want = (f: FigureName) => !o.only || o.only.includes(f);
+  const notSelected: Skipped = { skipped: `not selected (--only ${o.only?.join(',')})` };
+  const needsScenario = SCENARIO_FIGURES.some(want);
 
   let cluster: RunningCluster | null = null;
   let runtime: Runtime | null = null;
@@ -209,9 +230,9 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
     environment.commitFlushMs = await commitLatency(loader);
     log(`PostgreSQL ${environment.postgres}, fsync=${environment.fsync}, shared_buffers=${environment.sharedBuffers}, one-row commit ${environment.commitFlushMs} ms; scale ${o.scale}`);
 
-    // 2. Phase 0: half the scenario.
-    const passwordHash = await hashPassword(BENCH_PASSWORD);
-    const loads: BenchResults['scenario']['load']['phases'] = [];
+    // 2. Phase 0: half the scenario (unless no selected figure needs it).
+    const passwordHash = needsScenario ? await hashPassword(BENCH_PASSWORD) : '';
+    const loads: ScenarioSummary['load']['phases'] = [];
     const analyzeSeconds: number[] = [];
     const load = async (phase: number) => {
       const r = await loadPhase(loader!, plan, phase, passwordHash, log);
@@ -222,126 +243,159 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       log(`phase ${phase} loaded in ${(r.ms / 1000).toFixed(1)} s; ANALYZE ${analyzeSeconds.at(-1)} s`);
       return r.ids;
     };
-    const ids = await load(0);
-    const half = await counts(loader, ids);
-    log(`half scenario: ${half.trials} trials, ${half.cohorts} cohorts, ${half.logRows.toLocaleString('en')} log rows`);
 
-    // The in-process app (figures 1 and 2 share its pool with the bare SQL).
-    const app = buildBenchApp({ dataSource: ds, databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint });
-    const server = await listenLoopback(app);
-    cleanups.push(async () => {
-      await server.close();
-      await (app.locals.closeExtras as () => Promise<void>)();
-    });
-    const hasCohortRoute = (app.locals.routeSpecs as RouteSpec[]).some((s) => s.method === 'get' && s.path === '/cohorts/:cohortId/results');
-    const cohortQueries = hasCohortRoute ? await loadCohortResultsQueries() : null;
-    const grower = new SessionClient(server.url);
-    const growerUser = await grower.signIn(benchEmails.grower, BENCH_PASSWORD);
-    const lead = new SessionClient(server.url);
-    const leadUser = await lead.signIn(benchEmails.lead, BENCH_PASSWORD);
-
-    const measureReads = async (label: string) => {
-      log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
-      const analysis = await compareRouteWithSql({ client: grower, path: `/api/trials/${ids.featuredTrialId}/analysis`, bare: bareAnalysis(ds, ids.featuredTrialId, today), iterations, warmup, budgetMs: 30_000, minIterations: Math.min(iterations, 20) });
-      log(`${label}: analysis median ${analysis.routeMs.median} ms (p95 ${analysis.routeMs.p95}), bare SQL ${analysis.bareSqlMs.median} ms, ratio ${r3(analysis.ratio)}`);
-      let cohort: RouteFigure | Skipped;
-      if (!hasCohortRoute || !cohortQueries) {
-        cohort = { skipped: hasCohortRoute ? 'cohortResultsQueries not found in server/services/cohort-results.service.ts' : 'GET /api/cohorts/:cohortId/results is not in buildRouteSpecs() in this checkout' };
-        log(`${label}: figure 2 skipped (${cohort.skipped})`);
-      } else {
-        log(`${label}: figure 2, GET /api/cohorts/:id/results (${plan.bigCohortTrials} trials) ×${iterations} against its bare SQL`);
-        cohort = await compareRouteWithSql({ client: lead, path: `/api/cohorts/${ids.bigCohortId}/results`, bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today), iterations, warmup: Math.min(warmup, 2), budgetMs: 30_000, minIterations: Math.min(iterations, 10) });
-        log(`${label}: cohort results median ${cohort.routeMs.median} ms (p95 ${cohort.routeMs.p95}), bare SQL ${cohort.bareSqlMs.median} ms, ratio ${r3(cohort.ratio)}`);
-      }
-      return { analysis, cohort };
-    };
-    const measureExportIn = async (label: 'half' | 'full', child: Awaited<ReturnType<typeof startChildServer>>) => {
-      const network = new SessionClient(child.url);
-      await network.signIn(benchEmails.network, BENCH_PASSWORD);
-      const reps = label === 'half' ? exportReps.half : exportReps.full;
-      log(`${label}: figure 3, cohort water-events CSV export ×${reps} against COPY TO STDOUT`);
-      const fig = await measureExport({ child, client: network, databaseUrl: databaseUrl!, cohortId: ids.networkCohortId, reps });
-      log(`${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`);
-      return fig;
-    };
-    const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
-    const bounded = o.scale >= 0.1 ? { durationS: 10, amount: null } : { durationS: null, amount: 40 };
-
-    const halfReads = await measureReads('half');
-    const childA = await startChildServer(childEnv);
-    let halfExport: ExportFigure;
-    try {
-      halfExport = await measureExportIn('half', childA);
-    } finally {
-      await childA.stop();
-    }
-
-    // 3. Phase 1: the other half.
-    await load(1);
-    const full = await counts(loader, ids);
-    log(`full scenario: ${full.trials} trials, ${full.cohorts} cohorts, ${full.logRows.toLocaleString('en')} log rows`);
-    const fullReads = await measureReads('full');
-
-    // Round trips per request, recorded once on the in-process app.
-    const drain = async (r: Promise<Response>) => {
-      const res = await r;
-      await res.arrayBuffer();
-      if (res.status >= 300) throw new Error(`round-trip probe: ${res.status}`);
-    };
-    const roundTrips: RoundTrips = {
-      analysis: { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 },
-      cohort: cohortQueries ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: 4 } : { skipped: 'no cohort results route' },
-      write: {
-        route: await recordQueries(() =>
-          drain(grower.post(`/api/trials/${ids.writeTrialId}/water-events`, { plotId: ids.writePlotIds[0], occurredAt: '2026-11-30T07:00:00Z', kind: 'olla_refill', volumeL: 6 })),
-        ),
-        bare: 1,
-      },
-    };
-    log(`round trips per request: analysis ${roundTrips.analysis.route.length}, write ${roundTrips.write.route.length}`);
-
-    // Query plans at full size, for the diagnostics.
+    let scenario: ScenarioSummary | Skipped = { skipped: 'no selected figure needs the scenario' };
+    let halfFigures: PhaseFigures = { analysis: notSelected, cohort: notSelected, export: notSelected };
+    let fullFigures: PhaseFigures = { analysis: notSelected, cohort: notSelected, export: notSelected };
+    let writes: WritesFigure | Skipped = notSelected;
+    let imported: ImportFigure | Skipped = notSelected;
+    let roundTrips: RoundTrips = { analysis: notSelected, cohort: notSelected, write: notSelected };
     const plans: Awaited<ReturnType<typeof explain>>[] = [];
-    const [trialRow] = (await ds.query(analysisQueries.trial, [ids.featuredTrialId])) as { gardenId: string; plantingDate: string; endDate: string }[];
-    const asOf = trialRow!.endDate < today() ? trialRow!.endDate : today();
-    for (const [name, sql, params] of [
-      ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
-      ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
-      ['analysis.weather', analysisQueries.weather, [trialRow!.gardenId, trialRow!.plantingDate, asOf]],
-      ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
-    ] as const) {
-      plans.push(await explain(ds, name, sql, [...params]));
-    }
-    if (cohortQueries) {
-      plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
-      plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
-      plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
-      plans.push(await explain(ds, 'cohort.progress', cohortQueries.progress, [ids.bigCohortId]));
-    }
-    fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));
 
-    // 4. The child app at full size: export, then writes, then imports.
-    const childB = await startChildServer(childEnv);
-    let fullExport: ExportFigure;
-    let writes: WritesFigure;
-    let imported: ImportFigure;
-    try {
-      fullExport = await measureExportIn('full', childB);
-      const writer = new SessionClient(childB.url);
-      await writer.signIn(benchEmails.grower, BENCH_PASSWORD);
-      log(`figure 4: POST water events with autocannon, 20 connections, ${bounded.durationS ? `${bounded.durationS} s` : `${bounded.amount} requests`}`);
-      writes = await measureWrites({ client: writer, databaseUrl, trialId: ids.writeTrialId, plotIds: ids.writePlotIds, userId: growerUser.id, connections: 20, poolSize: 10, ...bounded });
-      log(`writes: ${writes.api.requestsPerSecond.mean} req/s, p99 ${writes.api.latencyMs.p99} ms, ${writes.api.errors} errors, ${writes.api.non2xx} non-2xx; direct ${writes.direct.rowsPerSecond} rows/s, ratio ${r3(writes.ratio)}`);
-      log(`figure 5: import ${plan.importRows.toLocaleString('en')} CSV rows ×${ids.importTrialIds.length}`);
-      imported = await measureImport({ child: childB, client: writer, trialIds: ids.importTrialIds, plotLabels: ids.importPlotLabels, rows: plan.importRows });
-      log(`import: median ${imported.totalSeconds.median} s (parse ${imported.steps.parse}, normalise ${imported.steps.normalise}, serialise ${imported.steps.serialise}, request ${imported.steps.request})`);
-    } finally {
-      await childB.stop();
+    if (needsScenario) {
+      const ids = await load(0);
+      const half = await counts(loader, ids);
+      log(`half scenario: ${half.trials} trials, ${half.cohorts} cohorts, ${half.logRows.toLocaleString('en')} log rows`);
+
+      // The in-process app (figures 1 and 2 share its pool with the bare SQL).
+      const app = buildBenchApp({ dataSource: ds, databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint });
+      const server = await listenLoopback(app);
+      cleanups.push(async () => {
+        await server.close();
+        await (app.locals.closeExtras as () => Promise<void>)();
+      });
+      const hasCohortRoute = (app.locals.routeSpecs as RouteSpec[]).some((s) => s.method === 'get' && s.path === '/cohorts/:cohortId/results');
+      const cohortQueries = hasCohortRoute && want('cohort') ? await loadCohortResultsQueries() : null;
+      const grower = new SessionClient(server.url);
+      const growerUser = await grower.signIn(benchEmails.grower, BENCH_PASSWORD);
+      const lead = new SessionClient(server.url);
+      const leadUser = await lead.signIn(benchEmails.lead, BENCH_PASSWORD);
+
+      const measureReads = async (label: string) => {
+        let analysis: RouteFigure | Skipped = notSelected;
+        if (want('analysis')) {
+          log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
+          const a = await compareRouteWithSql({ client: grower, path: `/api/trials/${ids.featuredTrialId}/analysis`, bare: bareAnalysis(ds, ids.featuredTrialId, today), iterations, warmup, budgetMs: 30_000, minIterations: Math.min(iterations, 20) });
+          log(`${label}: analysis median ${a.routeMs.median} ms (p95 ${a.routeMs.p95}), bare SQL ${a.bareSqlMs.median} ms, ratio ${r3(a.ratio)}`);
+          analysis = a;
+        }
+        let cohort: RouteFigure | Skipped = notSelected;
+        if (!want('cohort')) cohort = notSelected;
+        else if (!hasCohortRoute || !cohortQueries) {
+          cohort = { skipped: hasCohortRoute ? 'cohortResultsQueries not found in server/services/cohort-results.service.ts' : 'GET /api/cohorts/:cohortId/results is not in buildRouteSpecs() in this checkout' };
+          log(`${label}: figure 2 skipped (${cohort.skipped})`);
+        } else {
+          log(`${label}: figure 2, GET /api/cohorts/:id/results (${plan.bigCohortTrials} trials) ×${iterations} against its bare SQL`);
+          const c = await compareRouteWithSql({ client: lead, path: `/api/cohorts/${ids.bigCohortId}/results`, bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today), iterations, warmup: Math.min(warmup, 2), budgetMs: 30_000, minIterations: Math.min(iterations, 10) });
+          log(`${label}: cohort results median ${c.routeMs.median} ms (p95 ${c.routeMs.p95}), bare SQL ${c.bareSqlMs.median} ms, ratio ${r3(c.ratio)}`);
+          cohort = c;
+        }
+        return { analysis, cohort };
+      };
+      const measureExportIn = async (label: 'half' | 'full', child: Awaited<ReturnType<typeof startChildServer>>) => {
+        const network = new SessionClient(child.url);
+        await network.signIn(benchEmails.network, BENCH_PASSWORD);
+        const reps = label === 'half' ? exportReps.half : exportReps.full;
+        log(`${label}: figure 3, cohort water-events CSV export ×${reps} against COPY TO STDOUT`);
+        const fig = await measureExport({ child, client: network, databaseUrl: databaseUrl!, cohortId: ids.networkCohortId, reps });
+        log(`${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`);
+        return fig;
+      };
+      const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
+      const bounded = o.scale >= 0.1 ? { durationS: 10, amount: null } : { durationS: null, amount: 40 };
+
+      const halfReads = await measureReads('half');
+      let halfExport: ExportFigure | Skipped = notSelected;
+      if (want('export')) {
+        const childA = await startChildServer(childEnv);
+        try {
+          halfExport = await measureExportIn('half', childA);
+        } finally {
+          await childA.stop();
+        }
+      }
+      halfFigures = { analysis: halfReads.analysis, cohort: halfReads.cohort, export: halfExport };
+
+      // 3. Phase 1: the other half.
+      await load(1);
+      const full = await counts(loader, ids);
+      log(`full scenario: ${full.trials} trials, ${full.cohorts} cohorts, ${full.logRows.toLocaleString('en')} log rows`);
+      const fullReads = await measureReads('full');
+
+      // Round trips per request, recorded once on the in-process app.
+      const drain = async (r: Promise<Response>) => {
+        const res = await r;
+        await res.arrayBuffer();
+        if (res.status >= 300) throw new Error(`round-trip probe: ${res.status}`);
+      };
+      roundTrips = {
+        analysis: want('analysis') ? { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 } : notSelected,
+        cohort: cohortQueries ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: 4 } : want('cohort') ? { skipped: 'no cohort results route' } : notSelected,
+        write: want('writes')
+          ? {
+              route: await recordQueries(() =>
+                drain(grower.post(`/api/trials/${ids.writeTrialId}/water-events`, { plotId: ids.writePlotIds[0], occurredAt: '2026-11-30T07:00:00Z', kind: 'olla_refill', volumeL: 6 })),
+              ),
+              bare: 1,
+            }
+          : notSelected,
+      };
+      log(`round trips per request: ${Object.entries(roundTrips).filter(([, t]) => !isSkipped(t)).map(([k, t]) => `${k} ${(t as { route: string[] }).route.length}`).join(', ') || 'none selected'}`);
+
+      // Query plans at full size, for the diagnostics.
+      if (want('analysis')) {
+        for (const [name, sql, params] of [
+          ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
+          ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
+          ['analysis.weather', analysisQueries.weather, [ids.featuredTrialId, today()]],
+          ['analysis.moisture', analysisQueries.moisture, [ids.featuredTrialId]],
+        ] as const) {
+          plans.push(await explain(ds, name, sql, [...params]));
+        }
+      }
+      if (cohortQueries) {
+        plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
+        plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
+        plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
+        plans.push(await explain(ds, 'cohort.progress', cohortQueries.progress, [ids.bigCohortId]));
+      }
+      if (plans.length) fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));
+
+      // 4. The child app at full size: export, then writes, then imports.
+      let fullExport: ExportFigure | Skipped = notSelected;
+      if (want('export') || want('writes') || want('import')) {
+        const childB = await startChildServer(childEnv);
+        try {
+          if (want('export')) fullExport = await measureExportIn('full', childB);
+          const writer = new SessionClient(childB.url);
+          await writer.signIn(benchEmails.grower, BENCH_PASSWORD);
+          if (want('writes')) {
+            log(`figure 4: POST water events with autocannon, 20 connections, ${bounded.durationS ? `${bounded.durationS} s` : `${bounded.amount} requests`}`);
+            const w = await measureWrites({ client: writer, databaseUrl, trialId: ids.writeTrialId, plotIds: ids.writePlotIds, userId: growerUser.id, connections: 20, poolSize: 10, ...bounded });
+            log(`writes: ${w.api.requestsPerSecond.mean} req/s, p99 ${w.api.latencyMs.p99} ms, ${w.api.errors} errors, ${w.api.non2xx} non-2xx; direct ${w.direct.rowsPerSecond} rows/s, ratio ${r3(w.ratio)}`);
+            writes = w;
+          }
+          if (want('import')) {
+            log(`figure 5: import ${plan.importRows.toLocaleString('en')} CSV rows ×${ids.importTrialIds.length}`);
+            const imp = await measureImport({ child: childB, client: writer, trialIds: ids.importTrialIds, plotLabels: ids.importPlotLabels, rows: plan.importRows });
+            log(`import: median ${imp.totalSeconds.median} s (parse ${imp.steps.parse}, normalise ${imp.steps.normalise}, serialise ${imp.steps.serialise}, request ${imp.steps.request})`);
+            imported = imp;
+          }
+        } finally {
+          await childB.stop();
+        }
+      }
+      fullFigures = { analysis: fullReads.analysis, cohort: fullReads.cohort, export: fullExport };
+
+      const totalRows = loads.flatMap((l) => l.steps).reduce((s, x) => s + x.rows, 0);
+      const totalSeconds = loads.reduce((s, l) => s + l.seconds, 0);
+      scenario = { plan, half, full, load: { phases: loads, analyzeSeconds, totalRows, totalSeconds: r3(totalSeconds), rowsPerSecond: Math.round(totalRows / totalSeconds) } };
     }
 
     // 5. The client.
     let client: ClientFigure | Skipped;
-    if (o.skipBrowser) client = { skipped: 'browser step skipped (--skip-browser)' };
+    if (!want('client')) client = notSelected;
+    else if (o.skipBrowser) client = { skipped: 'browser step skipped (--skip-browser)' };
     else if (!fs.existsSync(CHROMIUM)) client = { skipped: `Chromium not found at ${CHROMIUM} (apt-get install -y chromium)` };
     else {
       log('figure 6: vite build, then the sign-in page in headless Chromium');
@@ -349,26 +403,13 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       log(`client: ${client.jsCssGzipKb} KB JS+CSS gzipped (${client.jsCssTransferKb} KB sent), LCP median ${client.lcpMs.median} ms`);
     }
 
-    const totalRows = loads.flatMap((l) => l.steps).reduce((s, x) => s + x.rows, 0);
-    const totalSeconds = loads.reduce((s, l) => s + l.seconds, 0);
     const results: BenchResults = {
       generatedAt: new Date().toISOString(),
-      command: `npm run bench${o.scale !== 1 ? ` -- --scale ${o.scale}` : ''}${o.skipBrowser ? ' --skip-browser' : ''}`,
+      command: benchCommand(o),
       durationSeconds: r3((performance.now() - started) / 1000),
       environment,
-      scenario: {
-        plan,
-        half,
-        full,
-        load: { phases: loads, analyzeSeconds, totalRows, totalSeconds: r3(totalSeconds), rowsPerSecond: Math.round(totalRows / totalSeconds) },
-      },
-      figures: {
-        half: { analysis: halfReads.analysis, cohort: halfReads.cohort, export: halfExport },
-        full: { analysis: fullReads.analysis, cohort: fullReads.cohort, export: fullExport },
-        writes,
-        import: imported,
-        client,
-      },
+      scenario,
+      figures: { half: halfFigures, full: fullFigures, writes, import: imported, client },
       roundTrips,
       diagnostics: plans.map((p) => ({ query: p.name, executionMs: p.executionMs, planningMs: p.planningMs, seqScans: p.seqScans })),
       table: [],

@@ -9,6 +9,7 @@ import http from 'node:http';
 import path from 'node:path';
 import { createApp } from './app';
 import { parseEnv } from './config/env';
+import { serveBuiltClient } from './http/built-client';
 import { ClusterSetupError } from './infra/postgres-cluster';
 import { startJobRunner } from './jobs/runner';
 import { createLogger } from './lib/logger';
@@ -45,8 +46,7 @@ async function main() {
   if (env.NODE_ENV === 'production') {
     const dist = path.resolve('dist');
     if (!fs.existsSync(path.join(dist, 'index.html'))) throw new Error('No built client in dist/: run `npm run build` first.');
-    client.push(express.static(dist, { index: false, maxAge: '1h' }));
-    client.push((req, res, next) => (req.method === 'GET' ? res.sendFile(path.join(dist, 'index.html')) : next()));
+    client.push(...serveBuiltClient(dist));
   } else {
     const { createServer } = await import('vite');
     const vite = await createServer({ server: { middlewareMode: true, hmr: { server: httpServer } }, appType: 'spa' });

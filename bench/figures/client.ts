@@ -7,9 +7,9 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
-import express from 'express';
 import type { DataSource } from 'typeorm';
 import { chromium } from 'playwright-core';
+import { serveBuiltClient } from '../../server/http/built-client';
 import { buildBenchApp, listenLoopback } from '../lib/app';
 import { REPO_ROOT } from '../lib/child';
 import { r3, roundSummary, summarise, type Summary } from '../lib/stats';
@@ -22,7 +22,7 @@ export interface ClientFigure {
   files: { path: string; type: 'script' | 'stylesheet'; rawBytes: number; gzipBytes: number; transferBytes: number; encoding: string }[];
   jsCssRawKb: number;
   jsCssGzipKb: number;
-  /** Bytes the server actually sent for them (the app does not compress responses itself). */
+  /** Bytes the server actually sent for them (encoded body sizes: gzip from server/http/compression.ts). */
   jsCssTransferKb: number;
   otherRequests: { path: string; type: string; bytes: number }[];
   loads: number;
@@ -52,8 +52,8 @@ export async function measureClient(o: {
   const buildSeconds = (performance.now() - t0) / 1000;
   o.log(`client built in ${buildSeconds.toFixed(1)} s`);
 
-  // Served as server/start.ts serves it in production.
-  const client = [express.static(dist, { index: false, maxAge: '1h' }), ((req, res, next) => (req.method === 'GET' ? res.sendFile(path.join(dist, 'index.html')) : next())) as express.RequestHandler];
+  // Served as server/start.ts serves it in production (the app compresses it, server/http/compression.ts).
+  const client = serveBuiltClient(dist);
   const app = buildBenchApp({ dataSource: o.dataSource, databaseUrl: o.databaseUrl, smtpUrl: o.smtpUrl, s3Endpoint: o.s3Endpoint, client });
   const server = await listenLoopback(app);
   const profile = fs.mkdtempSync(path.join(o.tmpDir, 'chromium-'));
@@ -92,9 +92,9 @@ export async function measureClient(o: {
           pending.push(
             (async () => {
               const body = await res.body().catch(() => Buffer.alloc(0));
-              // What went over the wire: the body as the server encoded it (the app sends no Content-Encoding).
+              // What went over the wire: the body as the server encoded it (gzip when the app compresses it).
               const headers = res.headers();
-              const sent = Number(headers['content-length'] ?? NaN);
+              const sent = (await res.request().sizes().catch(() => null))?.responseBodySize ?? NaN;
               if (type === 'script' || type === 'stylesheet') {
                 files.push({ path: p, type, rawBytes: body.length, gzipBytes: gzipSync(body).length, transferBytes: Number.isFinite(sent) ? sent : body.length, encoding: headers['content-encoding'] ?? 'identity' });
               } else other.push({ path: p, type, bytes: body.length });

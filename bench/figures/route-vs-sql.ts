@@ -65,19 +65,17 @@ export async function compareRouteWithSql(o: {
   return { path: o.path, iterations: routeMs.length, warmup: o.warmup, routeMs: roundSummary(r), bareSqlMs: roundSummary(b), ratio: r.median / b.median, responseBytes };
 }
 
-/** The analysis route's SQL exactly as analysis.service.ts runs it: the trial row, then four aggregates at once. */
+/** The analysis route's SQL exactly as analysis.service.ts runs it: the trial row and four aggregates at once. */
 export function bareAnalysis(ds: DataSource, trialId: string, today: () => string) {
   return async () => {
-    const [trial] = (await ds.query(analysisQueries.trial, [trialId])) as { gardenId: string; plantingDate: string; endDate: string | null }[];
-    if (!trial) throw new Error('analysis trial not found');
-    const t = today();
-    const asOf = trial.endDate && trial.endDate < t ? trial.endDate : t;
-    await Promise.all([
+    const [trial] = (await Promise.all([
+      ds.query(analysisQueries.trial, [trialId]),
       ds.query(analysisQueries.plots, [trialId]),
       ds.query(analysisQueries.dailyWater, [trialId]),
-      ds.query(analysisQueries.weather, [trial.gardenId, trial.plantingDate, asOf]),
+      ds.query(analysisQueries.weather, [trialId, today()]),
       ds.query(analysisQueries.moisture, [trialId]),
-    ]);
+    ])) as unknown[][];
+    if (!trial?.length) throw new Error('analysis trial not found');
   };
 }
 

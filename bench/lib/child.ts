@@ -53,7 +53,7 @@ export async function startChildServer(env: { databaseUrl: string; smtpUrl: stri
   const pid = child.pid!;
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
   const url = await new Promise<string>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('the child server did not start within 60 s')), 60_000);
+    const timer = setTimeout(() => reject(new Error('the child server did not start within 180 s')), 180_000);
     child.once('message', (m: { type?: string; url?: string }) => {
       clearTimeout(timer);
       if (m.type === 'ready' && m.url) resolve(m.url);

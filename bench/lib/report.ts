@@ -1,5 +1,5 @@
 /** The results table (figure, value, spread, target, pass/miss, ratio) and RESULTS.md. */
-import type { BenchResults, Skipped } from '../bench';
+import { isSkipped, type BenchResults, type Skipped } from '../bench';
 import type { RouteFigure } from '../figures/route-vs-sql';
 import { r3 } from './stats';
 
@@ -17,7 +17,6 @@ export interface TableRow {
 export const GROWTH = { flatLatency: 1.3, flatMemory: 1.2, linearTolerance: 0.25 } as const;
 
 const n = (v: number, digits = 0) => v.toLocaleString('en', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
-const isSkipped = (v: unknown): v is Skipped => typeof v === 'object' && v !== null && 'skipped' in v;
 const status = (ok: boolean): TableRow['status'] => (ok ? 'pass' : 'miss');
 
 function routeRows(id: string, title: string, f: RouteFigure | Skipped, targetMs: number, trips?: { route: string[]; bare: number } | Skipped): TableRow[] {
@@ -49,22 +48,32 @@ export function tableRows(r: BenchResults): TableRow[] {
   const { half, full, writes, client } = r.figures;
   const imp = r.figures.import;
   const rows: TableRow[] = [];
-  const load = r.scenario.load;
+  const sc = isSkipped(r.scenario) ? null : r.scenario;
+  const skippedRow = (id: string, figure: string, target: string, why: Skipped) => rows.push({ id, figure, value: '—', spread: '—', target, status: 'skipped', ratio: why.skipped });
+  if (!sc) skippedRow('0', 'Scenario load', '—', r.scenario as Skipped);
+  else {
+  const load = sc.load;
   rows.push({
     id: '0',
-    figure: `Scenario load: ${n(r.scenario.full.trials)} trials, ${n(r.scenario.full.cohorts)} cohorts, ${n(r.scenario.full.logRows)} log rows (COPY + INSERT…SELECT generate_series)`,
+    figure: `Scenario load: ${n(sc.full.trials)} trials, ${n(sc.full.cohorts)} cohorts, ${n(sc.full.logRows)} log rows (COPY + INSERT…SELECT generate_series)`,
     value: `${n(load.totalSeconds, 1)} s`,
     spread: `${load.phases.map((p) => `phase ${p.phase} ${n(p.seconds, 1)} s`).join(', ')}; ANALYZE ${load.analyzeSeconds.map((s) => `${s} s`).join(' + ')}`,
     target: '—',
     status: 'info',
     ratio: `${n(load.rowsPerSecond)} rows/s`,
   });
-  rows.push(...routeRows('1', `1. GET /api/trials/:id/analysis, 20 plots, ${n(r.scenario.full.featuredTrialLogRows)} log rows (full size)`, full.analysis, 50, r.roundTrips.analysis));
-  rows.push(...routeRows('2', `2. GET /api/cohorts/:id/results, ${n(r.scenario.full.bigCohortTrials)} trials (full size)`, full.cohort, 300, r.roundTrips.cohort));
+  }
+  const sizeNote = (k: 'featuredTrialLogRows' | 'bigCohortTrials', unit: string) => (sc ? `, ${n(sc.full[k])} ${unit}` : '');
+  rows.push(...routeRows('1', `1. GET /api/trials/:id/analysis, 20 plots${sizeNote('featuredTrialLogRows', 'log rows')} (full size)`, full.analysis, 50, r.roundTrips.analysis));
+  rows.push(...routeRows('2', `2. GET /api/cohorts/:id/results${sizeNote('bigCohortTrials', 'trials')} (full size)`, full.cohort, 300, r.roundTrips.cohort));
   for (const [label, e] of [
     ['full', full.export],
     ['half', half.export],
   ] as const) {
+    if (isSkipped(e)) {
+      skippedRow(label === 'full' ? '3a' : '3c', `3. Cohort water-events CSV export (${label} size)`, 'API ÷ COPY ≥ 0.5', e);
+      continue;
+    }
     rows.push({
       id: label === 'full' ? '3a' : '3c',
       figure: `3. Cohort water-events CSV export, ${n(e.rows)} rows (${label} size)`,
@@ -84,6 +93,8 @@ export function tableRows(r: BenchResults): TableRow[] {
       ratio: '—',
     });
   }
+  if (isSkipped(writes)) skippedRow('4a', '4. POST /api/trials/:id/water-events (autocannon)', '— (reported)', writes);
+  else {
   rows.push({
     id: '4a',
     figure: `4. POST /api/trials/:id/water-events, autocannon ${writes.connections} connections, ${writes.durationS ? `${writes.durationS} s` : `${writes.amount} requests`}`,
@@ -91,7 +102,7 @@ export function tableRows(r: BenchResults): TableRow[] {
     spread: `per second median ${n(writes.api.requestsPerSecond.median)} (${n(writes.api.requestsPerSecond.p2_5)}–${n(writes.api.requestsPerSecond.p97_5)}); latency p50 ${writes.api.latencyMs.p50} ms, p99 ${writes.api.latencyMs.p99} ms`,
     target: '— (reported)',
     status: 'info',
-    ratio: `${r3(writes.ratio)} of direct INSERTs (${n(writes.direct.rowsPerSecond)} rows/s, pool ${writes.poolSize}); ${r.roundTrips.write.route.length} SQL statements per request against 1`,
+    ratio: `${r3(writes.ratio)} of direct INSERTs (${n(writes.direct.rowsPerSecond)} rows/s, pool ${writes.poolSize})${isSkipped(r.roundTrips.write) ? '' : `; ${r.roundTrips.write.route.length} SQL statements per request against 1`}`,
   });
   const failures = writes.api.errors + writes.api.non2xx + writes.api.timeouts;
   rows.push({
@@ -103,6 +114,9 @@ export function tableRows(r: BenchResults): TableRow[] {
     status: status(failures === 0 && writes.api.rowsWritten >= writes.api.ok && writes.api.rowsWritten <= writes.api.sent),
     ratio: '—',
   });
+  }
+  if (isSkipped(imp)) skippedRow('5', '5. Import of a CSV, parse + normalise + POST /api/trials/:id/import', '< 15 s', imp);
+  else
   rows.push({
     id: '5',
     figure: `5. Import of a ${n(imp.rows)}-row CSV (${imp.kind}), parse + normalise + POST /api/trials/:id/import`,
@@ -119,7 +133,7 @@ export function tableRows(r: BenchResults): TableRow[] {
       id: '6a',
       figure: `6. First page (${client.page}): JavaScript + CSS, gzipped`,
       value: `${client.jsCssGzipKb} KB`,
-      spread: `${client.files.length} files, ${client.jsCssRawKb} KB raw; ${client.jsCssTransferKb} KB actually sent (no compression in the app)`,
+      spread: `${client.files.length} files, ${client.jsCssRawKb} KB raw; ${client.jsCssTransferKb} KB actually sent (${[...new Set(client.files.map((f) => f.encoding))].join(', ')})`,
       target: '< 180 KB',
       status: status(client.jsCssGzipKb < 180),
       ratio: '—',
@@ -134,7 +148,7 @@ export function tableRows(r: BenchResults): TableRow[] {
       ratio: client.lcpElement ? `element: ${client.lcpElement}` : '—',
     });
   }
-  const logRatio = r.scenario.full.logRows / r.scenario.half.logRows;
+  const logRatio = sc ? sc.full.logRows / sc.half.logRows : NaN;
   const growth = (id: string, title: string, h: RouteFigure | Skipped, f: RouteFigure | Skipped) => {
     if (isSkipped(h) || isSkipped(f)) return rows.push({ id, figure: title, value: '—', spread: '—', target: `≤ ${GROWTH.flatLatency} (flat)`, status: 'skipped', ratio: '—' });
     const g = f.routeMs.median / h.routeMs.median;
@@ -150,9 +164,14 @@ export function tableRows(r: BenchResults): TableRow[] {
   };
   growth('7a', '7. Growth, half → full: trial analysis route', half.analysis, full.analysis);
   growth('7b', '7. Growth, half → full: cohort results route', half.cohort, full.cohort);
-  const rowsRatio = full.export.rows / half.export.rows;
-  const timeRatio = full.export.apiSeconds.median / half.export.apiSeconds.median;
-  const copyRatio = full.export.copySeconds.median / half.export.copySeconds.median;
+  const [he, fe] = [half.export, full.export];
+  if (isSkipped(he) || isSkipped(fe)) {
+    skippedRow('7c', '7. Growth, half → full: export cost per row', `within ±${GROWTH.linearTolerance * 100} % (linear)`, isSkipped(fe) ? fe : (he as Skipped));
+    skippedRow('7d', '7. Growth, half → full: export peak memory', `≤ ${GROWTH.flatMemory} (flat)`, isSkipped(fe) ? fe : (he as Skipped));
+  } else {
+  const rowsRatio = fe.rows / he.rows;
+  const timeRatio = fe.apiSeconds.median / he.apiSeconds.median;
+  const copyRatio = fe.copySeconds.median / he.copySeconds.median;
   // The machine's speed drifts between the two phases; COPY of the same rows, interleaved with the API
   // runs in each phase, moves with it. API time ÷ COPY time staying put means the export grows like COPY:
   // linearly in the rows, with no per-row cost that builds up.
@@ -161,21 +180,22 @@ export function tableRows(r: BenchResults): TableRow[] {
     id: '7c',
     figure: '7. Growth, half → full: export cost per row (API time ÷ COPY time of the same rows, same phase)',
     value: `${r3(overheadRatio)}×`,
-    spread: `API ${half.export.apiSeconds.median} → ${full.export.apiSeconds.median} s (${r3(timeRatio)}×), COPY ${half.export.copySeconds.median} → ${full.export.copySeconds.median} s (${r3(copyRatio)}×), for ${r3(rowsRatio)}× the rows`,
+    spread: `API ${he.apiSeconds.median} → ${fe.apiSeconds.median} s (${r3(timeRatio)}×), COPY ${he.copySeconds.median} → ${fe.copySeconds.median} s (${r3(copyRatio)}×), for ${r3(rowsRatio)}× the rows`,
     target: `within ±${GROWTH.linearTolerance * 100} % (linear)`,
     status: status(Math.abs(overheadRatio - 1) <= GROWTH.linearTolerance),
     ratio: `raw time ${r3(timeRatio / rowsRatio)} of linear`,
   });
-  const memRatio = full.export.memory.hwmMb / half.export.memory.hwmMb;
+  const memRatio = fe.memory.hwmMb / he.memory.hwmMb;
   rows.push({
     id: '7d',
     figure: '7. Growth, half → full: export peak memory',
     value: `${r3(memRatio)}×`,
-    spread: `${half.export.memory.hwmMb} → ${full.export.memory.hwmMb} MB for ${r3(rowsRatio)}× the rows`,
+    spread: `${he.memory.hwmMb} → ${fe.memory.hwmMb} MB for ${r3(rowsRatio)}× the rows`,
     target: `≤ ${GROWTH.flatMemory} (flat)`,
     status: status(memRatio <= GROWTH.flatMemory),
     ratio: '—',
   });
+  }
   const order = ['0', '1a', '1b', '1', '2a', '2b', '2', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '6a', '6b', '7a', '7b', '7c', '7d'];
   return rows.sort((a, b) => order.indexOf(a.id) - order.indexOf(b.id));
 }
@@ -201,6 +221,8 @@ export function renderMarkdown(r: BenchResults): string {
   for (const row of r.table) {
     lines.push(`| ${row.id} | ${esc(row.figure)} | ${esc(row.value)} | ${esc(row.spread)} | ${esc(row.target)} | ${row.status} | ${esc(row.ratio)} |`);
   }
+  if (isSkipped(s)) lines.push('', `Scenario: ${s.skipped}.`, '');
+  else {
   lines.push('', '## Scenario (invented data)', '');
   lines.push('| | half | full |', '|---|---|---|');
   for (const key of ['users', 'cohorts', 'trials', 'plots', 'trialShares', 'waterEvents', 'moistureReadings', 'harvests', 'weatherDays', 'logRows', 'bigCohortTrials', 'networkCohortWaterEvents', 'databaseMb'] as const) {
@@ -209,6 +231,7 @@ export function renderMarkdown(r: BenchResults): string {
   lines.push('', '| Load step | Method | Rows | Seconds | Rows/s |', '|---|---|---|---|---|');
   for (const p of s.load.phases) {
     for (const st of p.steps) lines.push(`| phase ${p.phase}: ${st.table} | ${st.method} | ${n(st.rows)} | ${n(st.ms / 1000, 2)} | ${n(st.rowsPerSecond)} |`);
+  }
   }
   lines.push('', '## SQL statements per request (recorded once on the in-process app)', '');
   for (const [name, t] of Object.entries(r.roundTrips) as [string, { route: string[]; bare: number } | Skipped][]) {

@@ -508,3 +508,8 @@ async function loadRows(client: pg.ClientBase, phase: number, rows: Rows, ids: S
   log(`phase ${phase}: weather_days ${(w.value.rowCount ?? 0).toLocaleString('en')} rows in ${(w.ms / 1000).toFixed(1)} s`);
   return { ids, steps, ms: performance.now() - t0 };
 }
+
+/** The ids of the scenario's actors and featured trials, without loading anything (they are deterministic): for `--reuse-db`. */
+export function scenarioIds(plan: ScenarioPlan): ScenarioIds {
+  return buildPhase(plan, 0, 'unused').ids;
+}

@@ -9,11 +9,17 @@ import { importService } from '../services/import.service';
 /** The most rows one import takes (a season of daily logs for a large trial is far less). */
 export const MAX_IMPORT_ROWS = 200_000;
 
+/**
+ * The body: `{ kind, fileName?, rows }`, each row a record of the kind's fields in SI units (plots by
+ * `plotLabel`, optional `line` for error messages), as `normaliseRows` in shared/import/csv-import.ts
+ * makes them. Here only the envelope is checked: each row is validated once, field by field, with
+ * the kind's shared schema in the service, which lists every problem with its line.
+ */
 const importBodySchema = z.object({
   kind: z.enum(importKinds),
   fileName: z.string().max(255).optional(),
   rows: z
-    .array(z.record(z.string(), z.union([z.string(), z.number(), z.boolean(), z.null()])))
+    .array(z.unknown())
     .min(1, 'The file has no rows to import.')
     .max(MAX_IMPORT_ROWS, `At most ${MAX_IMPORT_ROWS.toLocaleString('en')} rows can be imported at once: split the file.`),
 });

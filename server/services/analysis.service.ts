@@ -23,39 +23,45 @@ export const analysisQueries = {
            ORDER BY p.block_key, p.label`,
   dailyWater: `SELECT plot_id AS "plotId", to_char(occurred_at AT TIME ZONE 'UTC', 'YYYY-MM-DD') AS day, sum(volume_l) AS litres
                  FROM water_events WHERE trial_id = $1 GROUP BY 1, 2 ORDER BY 2, 1`,
-  weather: `SELECT to_char(day, 'YYYY-MM-DD') AS day, t_min_c AS "tMinC", t_max_c AS "tMaxC", rain_mm AS "rainMm", rh_min_pct AS "rhMinPct", rh_max_pct AS "rhMaxPct",
-                   wind_speed_ms AS "windSpeedMs", wind_height_m AS "windHeightM", sunshine_hours AS "sunshineHours", solar_radiation_mj AS "solarRadiationMJ"
-              FROM weather_days WHERE garden_id = $1 AND NOT forecast AND day BETWEEN $2 AND $3 ORDER BY day`,
+  /** $1 trial, $2 today: the garden's weather from planting to the trial's end or today, whichever is first (asOf). */
+  weather: `SELECT to_char(w.day, 'YYYY-MM-DD') AS day, w.t_min_c AS "tMinC", w.t_max_c AS "tMaxC", w.rain_mm AS "rainMm", w.rh_min_pct AS "rhMinPct", w.rh_max_pct AS "rhMaxPct",
+                   w.wind_speed_ms AS "windSpeedMs", w.wind_height_m AS "windHeightM", w.sunshine_hours AS "sunshineHours", w.solar_radiation_mj AS "solarRadiationMJ"
+              FROM trials t JOIN weather_days w ON w.garden_id = t.garden_id
+             WHERE t.id = $1 AND NOT w.forecast AND w.day BETWEEN t.planting_date AND LEAST(COALESCE(t.end_date, $2::date), $2::date)
+             ORDER BY w.day`,
   moisture: `SELECT to_char(m.taken_at AT TIME ZONE 'UTC', 'YYYY-MM-DD') AS day, p.treatment, m.method, avg(m.value) AS mean, count(*)::int AS n
-               FROM moisture_readings m JOIN plots p ON p.id = m.plot_id
+               FROM moisture_readings m JOIN plots p ON p.id = m.plot_id AND p.trial_id = $1
               WHERE m.trial_id = $1 AND p.treatment IS NOT NULL
               GROUP BY 1, 2, 3 ORDER BY 1, 2, 3`,
 };
 
+interface TrialRow {
+  crop: string;
+  plantingDate: string;
+  endDate: string | null;
+  treatments: string[];
+  kcOverrides: Record<string, number>;
+  stressThresholds: Record<string, number>;
+  gardenId: string;
+  latitudeDeg: number;
+  elevationM: number;
+  coastal: boolean;
+}
+
 export function analysisService(ctx: AppContext) {
   return {
     async forTrial(trialId: string): Promise<TrialAnalysis & { asOf: string }> {
-      const [trial] = (await ctx.ds.query(analysisQueries.trial, [trialId])) as {
-        crop: string;
-        plantingDate: string;
-        endDate: string | null;
-        treatments: string[];
-        kcOverrides: Record<string, number>;
-        stressThresholds: Record<string, number>;
-        gardenId: string;
-        latitudeDeg: number;
-        elevationM: number;
-        coastal: boolean;
-      }[];
-      if (!trial) throw AppError.notFound('Trial');
       const today = ctx.now().toISOString().slice(0, 10);
-      const asOf = trial.endDate && trial.endDate < today ? trial.endDate : today;
-      const [plots, dailyWater, weather, moisture] = await Promise.all([
+      // One round trip: the weather query finds the garden and the season from the trial itself.
+      const [[trial], plots, dailyWater, weather, moisture] = await Promise.all([
+        ctx.ds.query(analysisQueries.trial, [trialId]) as Promise<TrialRow[]>,
         ctx.ds.query(analysisQueries.plots, [trialId]) as Promise<PlotAggregate[]>,
         ctx.ds.query(analysisQueries.dailyWater, [trialId]) as Promise<{ plotId: string; day: string; litres: number }[]>,
-        ctx.ds.query(analysisQueries.weather, [trial.gardenId, trial.plantingDate, asOf]) as Promise<WeatherAggregate[]>,
+        ctx.ds.query(analysisQueries.weather, [trialId, today]) as Promise<WeatherAggregate[]>,
         ctx.ds.query(analysisQueries.moisture, [trialId]) as Promise<{ day: string; treatment: string; method: string; mean: number; n: number }[]>,
       ]);
+      if (!trial) throw AppError.notFound('Trial');
+      const asOf = trial.endDate && trial.endDate < today ? trial.endDate : today;
       const result = analyseTrial({
         trial: {
           crop: trial.crop,

@@ -1,26 +1,42 @@
-import { createHash } from 'node:crypto';
+import { hash } from 'node:crypto';
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import type { ImportKind, RowError } from '@shared/import/csv-import';
 import { harvestInputSchema, moistureReadingInputSchema, waterEventInputSchema, weatherDayInputSchema } from '@shared/schemas/logs';
-import type { z } from 'zod';
+import type { PoolClient } from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
+import { z } from 'zod';
 import type { AppContext } from '../context';
 import { AppError } from '../lib/app-error';
 import { assertTrialWritable } from './trials.service';
 
 /** How many row errors are listed in one answer; the total is always given. */
 const MAX_LISTED_ERRORS = 500;
-const CHUNK = 5000;
 
-type Row = Record<string, unknown> & { line?: number };
+type Row = Record<string, unknown>;
 
-const schemas: Record<ImportKind, z.ZodType> = {
+const schemas = {
   'water-events': waterEventInputSchema,
   'moisture-readings': moistureReadingInputSchema,
   harvests: harvestInputSchema,
   'weather-days': weatherDayInputSchema,
-};
+} satisfies Record<ImportKind, z.ZodObject>;
 
-/** Column arrays for one INSERT ... SELECT FROM unnest(...) per kind. */
-const inserts: Record<Exclude<ImportKind, 'weather-days'>, { table: string; cols: [string, string, string][] }> = {
+/** The record fields each kind reads from a row (the schema's own keys); anything else in a row is ignored. */
+const fieldsOf: Record<ImportKind, string[]> = Object.fromEntries(Object.entries(schemas).map(([k, s]) => [k, Object.keys(s.shape)])) as Record<
+  ImportKind,
+  string[]
+>;
+/** The same keys in the order `Object.keys(…).sort()` gives, for the fingerprint. */
+const sortedFieldsOf: Record<ImportKind, string[]> = Object.fromEntries(Object.entries(fieldsOf).map(([k, f]) => [k, [...f].sort()])) as Record<
+  ImportKind,
+  string[]
+>;
+
+type Column = [column: string, pgType: string, field: string];
+
+/** Where each kind goes: the table, its columns (filled from the validated record) and the duplicate rule. */
+const targets: Record<ImportKind, { table: string; cols: Column[]; conflict: string; byTrial: boolean }> = {
   'water-events': {
     table: 'water_events',
     cols: [
@@ -32,6 +48,8 @@ const inserts: Record<Exclude<ImportKind, 'weather-days'>, { table: string; cols
       ['fertiliser', 'bool', 'fertiliser'],
       ['notes', 'text', 'notes'],
     ],
+    conflict: '(trial_id, idempotency_key) WHERE idempotency_key IS NOT NULL',
+    byTrial: true,
   },
   'moisture-readings': {
     table: 'moisture_readings',
@@ -42,6 +60,8 @@ const inserts: Record<Exclude<ImportKind, 'weather-days'>, { table: string; cols
       ['depth_cm', 'float8', 'depthCm'],
       ['value', 'float8', 'value'],
     ],
+    conflict: '(trial_id, idempotency_key) WHERE idempotency_key IS NOT NULL',
+    byTrial: true,
   },
   harvests: {
     table: 'harvests',
@@ -53,6 +73,26 @@ const inserts: Record<Exclude<ImportKind, 'weather-days'>, { table: string; cols
       ['count', 'int4', 'count'],
       ['notes', 'text', 'notes'],
     ],
+    conflict: '(trial_id, idempotency_key) WHERE idempotency_key IS NOT NULL',
+    byTrial: true,
+  },
+  'weather-days': {
+    table: 'weather_days',
+    cols: [
+      ['day', 'date', 'day'],
+      ['t_min_c', 'float8', 'tMinC'],
+      ['t_max_c', 'float8', 'tMaxC'],
+      ['rain_mm', 'float8', 'rainMm'],
+      ['rh_min_pct', 'float8', 'rhMinPct'],
+      ['rh_max_pct', 'float8', 'rhMaxPct'],
+      ['wind_speed_ms', 'float8', 'windSpeedMs'],
+      ['wind_height_m', 'float8', 'windHeightM'],
+      ['sunshine_hours', 'float8', 'sunshineHours'],
+      ['solar_radiation_mj', 'float8', 'solarRadiationMJ'],
+      ['forecast', 'bool', 'forecast'],
+    ],
+    conflict: '(garden_id, day, forecast)',
+    byTrial: false,
   },
 };
 
@@ -60,26 +100,63 @@ const timeField: Record<ImportKind, string> = { 'water-events': 'occurredAt', 'm
 
 /**
  * A fingerprint per row: the same content (and its occurrence number among identical rows of
- * the file) gives the same key, so importing a file again adds nothing.
+ * the file) gives the same key, so importing a file again adds nothing. The canonical text is
+ * exactly `JSON.stringify(Object.keys(record).sort().map((k) => [k, record[k]]))` of the
+ * validated record, built from the schema's keys in sorted order instead of sorting each row's
+ * keys, so keys written by earlier versions still match (tests/unit/import-fingerprint.test.ts).
  */
-function fingerprints(kind: ImportKind, rows: Row[]): string[] {
+export function importFingerprints(kind: ImportKind, records: Row[]): string[] {
+  const keys = sortedFieldsOf[kind];
   const seen = new Map<string, number>();
-  return rows.map((r) => {
-    const { line: _line, ...content } = r;
-    const canonical = JSON.stringify(Object.keys(content).sort().map((k) => [k, content[k]]));
+  const out = new Array<string>(records.length);
+  for (let r = 0; r < records.length; r++) {
+    const rec = records[r]!;
+    const pairs: [string, unknown][] = [];
+    for (const k of keys) if (k in rec) pairs.push([k, rec[k]]);
+    const canonical = JSON.stringify(pairs);
     const n = (seen.get(canonical) ?? 0) + 1;
     seen.set(canonical, n);
-    return `imp_${createHash('sha256').update(`${kind}|${canonical}|${n}`).digest('hex').slice(0, 56)}`;
-  });
+    out[r] = `imp_${hash('sha256', `${kind}|${canonical}|${n}`).slice(0, 56)}`;
+  }
+  return out;
 }
+
+/** One value in PostgreSQL's COPY text format. */
+function copyText(v: unknown): string {
+  if (v === null || v === undefined) return '\\N';
+  if (typeof v === 'boolean') return v ? 't' : 'f';
+  if (typeof v === 'number') return String(v);
+  const s = String(v);
+  return /[\\\t\n\r]/.test(s) ? s.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r')) : s;
+}
+
+/** The rows as COPY text, in pieces of about 256 kB. */
+function* copyChunks(records: Row[], keys: string[] | null, cols: Column[]): Generator<string> {
+  let buf = '';
+  for (let r = 0; r < records.length; r++) {
+    const rec = records[r]!;
+    let line = keys ? `${keys[r]!}\t` : '';
+    for (let c = 0; c < cols.length; c++) line += (c ? '\t' : '') + copyText(rec[cols[c]![2]]);
+    buf += `${line}\n`;
+    if (buf.length > 262_144) {
+      yield buf;
+      buf = '';
+    }
+  }
+  if (buf) yield buf;
+}
+
+const isPlainRow = (v: unknown): v is Row => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 export function importService(ctx: AppContext) {
   return {
     /**
      * Validates every row (schema, plot of this trial, date within the trial) and writes all of
-     * them in one transaction, or nothing and the full list of problems.
+     * them in one transaction, or nothing and the full list of problems. The valid rows go into a
+     * temporary table by COPY, then into the log table by one INSERT … SELECT that skips rows
+     * already imported.
      */
-    async importRows(trialId: string, userId: string, kind: ImportKind, rows: Row[]) {
+    async importRows(trialId: string, userId: string, kind: ImportKind, rows: unknown[]) {
       const [trial] = (await ctx.ds.query('SELECT garden_id, planting_date, end_date, status FROM trials WHERE id = $1', [trialId])) as {
         garden_id: string;
         planting_date: string;
@@ -95,22 +172,29 @@ export function importService(ctx: AppContext) {
 
       const errors: RowError[] = [];
       const valid: Row[] = [];
-      const schema = schemas[kind];
+      const schema: z.ZodType = schemas[kind];
+      const fields = fieldsOf[kind];
+      const byPlot = kind !== 'weather-days';
+      const when = timeField[kind];
       rows.forEach((raw, i) => {
+        if (!isPlainRow(raw)) {
+          errors.push({ line: i + 2, column: '', reason: 'This row is not a record of named fields.' });
+          return;
+        }
         const line = typeof raw.line === 'number' ? raw.line : i + 2;
-        const input: Row = { ...raw };
-        delete input.line;
-        if (kind !== 'weather-days') {
-          const label = String(input.plotLabel ?? '').trim().toLowerCase();
-          const plotId = plotByLabel.get(label);
-          delete input.plotLabel;
+        // Only the record's own fields, read as own properties (never through the prototype).
+        const input: Row = {};
+        for (const f of fields) if (Object.hasOwn(raw, f)) input[f] = raw[f];
+        if (byPlot) {
+          const label = String(Object.hasOwn(raw, 'plotLabel') ? (raw.plotLabel ?? '') : '');
+          const plotId = plotByLabel.get(label.trim().toLowerCase());
           if (!plotId) {
             errors.push({
               line,
               column: 'plot',
-              reason: `No plot "${String(raw.plotLabel ?? '')}" in this trial (plots: ${plots.map((p) => p.label).join(', ')}).`,
+              reason: `No plot "${label}" in this trial (plots: ${plots.map((p) => p.label).join(', ')}).`,
               code: 'unknownPlot',
-              params: { plot: String(raw.plotLabel ?? ''), plots: plots.map((p) => p.label).join(', ') },
+              params: { plot: label, plots: plots.map((p) => p.label).join(', ') },
             });
             return;
           }
@@ -122,19 +206,28 @@ export function importService(ctx: AppContext) {
           return;
         }
         const value = parsed.data as Row;
-        const when = String(value[timeField[kind]]);
-        const day = when.length > 10 ? new Date(when).toISOString().slice(0, 10) : when;
+        // PostgreSQL text cannot hold a NUL character; say so instead of failing the whole COPY.
+        for (const f of fields) {
+          const v = value[f];
+          if (typeof v === 'string' && v.includes('\0')) {
+            errors.push({ line, column: f, reason: 'This cell contains a NUL character, which cannot be stored.' });
+            return;
+          }
+        }
+        const at = String(value[when]);
+        // An instant ending in Z carries its UTC day in its first ten characters; other offsets go through Date.
+        const day = at.length > 10 ? (at.endsWith('Z') ? at.slice(0, 10) : new Date(at).toISOString().slice(0, 10)) : at;
         if (day < trial.planting_date || day > lastDay) {
           errors.push({
             line,
-            column: timeField[kind],
+            column: when,
             reason: `${day} is outside this trial (planted ${trial.planting_date}${trial.end_date ? `, ends ${trial.end_date}` : ''}).`,
             code: 'outsideTrial',
             params: { day, planted: trial.planting_date, ends: trial.end_date ?? '' },
           });
           return;
         }
-        valid.push({ ...value, line });
+        valid.push(value);
       });
       if (errors.length) {
         throw AppError.validation(`${errors.length} problem${errors.length === 1 ? '' : 's'} found: nothing was imported. Fix the file and try again.`, {
@@ -144,53 +237,56 @@ export function importService(ctx: AppContext) {
       }
       if (!valid.length) throw AppError.validation('The file has no rows to import.');
 
-      const keys = fingerprints(kind, valid);
-      let inserted = 0;
-      await ctx.ds.transaction(async (tx) => {
-        await assertTrialWritable(tx, trialId);
-        for (let start = 0; start < valid.length; start += CHUNK) {
-          const chunk = valid.slice(start, start + CHUNK);
-          const chunkKeys = keys.slice(start, start + CHUNK);
-          if (kind === 'weather-days') {
-            const cols: [string, string, string][] = [
-              ['day', 'date', 'day'],
-              ['t_min_c', 'float8', 'tMinC'],
-              ['t_max_c', 'float8', 'tMaxC'],
-              ['rain_mm', 'float8', 'rainMm'],
-              ['rh_min_pct', 'float8', 'rhMinPct'],
-              ['rh_max_pct', 'float8', 'rhMaxPct'],
-              ['wind_speed_ms', 'float8', 'windSpeedMs'],
-              ['wind_height_m', 'float8', 'windHeightM'],
-              ['sunshine_hours', 'float8', 'sunshineHours'],
-              ['solar_radiation_mj', 'float8', 'solarRadiationMJ'],
-              ['forecast', 'bool', 'forecast'],
-            ];
-            const params = cols.map(([, , f]) => chunk.map((r) => r[f] ?? null));
-            const res = (await tx.query(
-              `INSERT INTO weather_days (garden_id, entered_by, ${cols.map((c) => c[0]).join(', ')})
-               SELECT $1, $2, ${cols.map((_, i) => `u.c${i}`).join(', ')}
-                 FROM unnest(${cols.map((c, i) => `$${i + 3}::${c[1]}[]`).join(', ')}) AS u(${cols.map((_, i) => `c${i}`).join(', ')})
-               ON CONFLICT (garden_id, day, forecast) DO NOTHING
-               RETURNING id`,
-              [trial.garden_id, userId, ...params],
-            )) as unknown[];
-            inserted += res.length;
-            continue;
-          }
-          const spec = inserts[kind];
-          const params = spec.cols.map(([, , f]) => chunk.map((r) => r[f] ?? null));
-          const res = (await tx.query(
-            `INSERT INTO ${spec.table} (trial_id, entered_by, idempotency_key, ${spec.cols.map((c) => c[0]).join(', ')})
-             SELECT $1, $2, u.k, ${spec.cols.map((_, i) => `u.c${i}`).join(', ')}
-               FROM unnest($3::text[], ${spec.cols.map((c, i) => `$${i + 4}::${c[1]}[]`).join(', ')}) AS u(k, ${spec.cols.map((_, i) => `c${i}`).join(', ')})
-             ON CONFLICT (trial_id, idempotency_key) WHERE idempotency_key IS NOT NULL DO NOTHING
-             RETURNING id`,
-            [trialId, userId, chunkKeys, ...params],
-          )) as unknown[];
-          inserted += res.length;
+      const target = targets[kind];
+      const keys = target.byTrial ? importFingerprints(kind, valid) : null;
+      const runner = ctx.ds.createQueryRunner();
+      // PostgresQueryRunner.connect() resolves with its pooled pg client: COPY needs the client itself.
+      const client = (await runner.connect()) as PoolClient;
+      try {
+        await runner.startTransaction();
+        await assertTrialWritable(runner.manager, trialId);
+        const staged = target.cols.map(([, type], i) => `c${i} ${type}`).join(', ');
+        await client.query(`CREATE TEMP TABLE import_rows (${keys ? 'k text NOT NULL, ' : ''}${staged}) ON COMMIT DROP`);
+        await pipeline(Readable.from(copyChunks(valid, keys, target.cols)), client.query(copyFrom(`COPY import_rows FROM STDIN`)));
+        const colList = target.cols.map((c) => c[0]).join(', ');
+        const staging = target.cols.map((_, i) => `s.c${i}`).join(', ');
+        let inserted: number;
+        if (target.byTrial) {
+          // The plots were checked by label before the transaction; one join confirms, set-wise, that
+          // every plot still belongs to this trial (a plot deleted meanwhile is a clear conflict).
+          const [gone] = (
+            await client.query(
+              `SELECT count(*)::int AS n FROM (SELECT DISTINCT c0 FROM import_rows) s LEFT JOIN plots p ON p.id = s.c0 AND p.trial_id = $1 WHERE p.id IS NULL`,
+              [trialId],
+            )
+          ).rows as {
+            n: number;
+          }[];
+          if (gone!.n) throw new AppError('conflict', 'A plot of this trial was removed during the import. Nothing was imported; try again.');
+          const res = await client.query(
+            `INSERT INTO ${target.table} (trial_id, entered_by, idempotency_key, ${colList})
+             SELECT $1, $2, s.k, ${staging} FROM import_rows s
+             ON CONFLICT ${target.conflict} DO NOTHING`,
+            [trialId, userId],
+          );
+          inserted = res.rowCount ?? 0;
+        } else {
+          const res = await client.query(
+            `INSERT INTO ${target.table} (garden_id, entered_by, ${colList})
+             SELECT $1, $2, ${staging} FROM import_rows s
+             ON CONFLICT ${target.conflict} DO NOTHING`,
+            [trial.garden_id, userId],
+          );
+          inserted = res.rowCount ?? 0;
         }
-      });
-      return { received: valid.length, inserted, alreadyImported: valid.length - inserted };
+        await runner.commitTransaction();
+        return { received: valid.length, inserted, alreadyImported: valid.length - inserted };
+      } catch (err) {
+        if (runner.isTransactionActive) await runner.rollbackTransaction().catch(() => {});
+        throw err;
+      } finally {
+        await runner.release();
+      }
     },
   };
 }

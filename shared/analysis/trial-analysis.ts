@@ -107,11 +107,19 @@ export interface WeekRow {
   appliedMm: Record<string, number>;
 }
 
+export interface CumulativeSeries {
+  plotId: string;
+  label: string;
+  treatment: string | null;
+  points: [day: string, cumulativeL: number][];
+}
+
 export interface TrialAnalysis {
   plots: PlotSummary[];
   treatments: TreatmentSummary[];
   comparisons: Comparison[];
-  cumulative: { plotId: string; label: string; treatment: string | null; day: string; cumulativeL: number }[];
+  /** Water applied so far, one series per plot (by label), each point `[day, litres so far]` in day order. */
+  cumulative: CumulativeSeries[];
   cropWater: {
     weatherDays: number;
     methods: Record<Et0Method, number>;
@@ -269,26 +277,38 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     });
   if (comparisons.every((c) => c.pairs.length === 0) && plots.length) warnings.push(`No pair or block holds both a "${control}" plot and a treated plot yet.`);
 
-  // Cumulative water per plot (daily totals arrive summed; running sums here).
+  // Cumulative water per plot (daily totals arrive summed; running sums here), one series per
+  // plot: the plot's id, label and treatment once, not on each of its days.
   const byPlot = new Map(plots.map((p) => [p.id, p]));
-  const running = new Map<string, number>();
-  const labelOf = (id: string) => byPlot.get(id)?.label ?? id;
-  const cumulative = [...input.dailyWater]
-    .sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : byLabel(labelOf(a.plotId), labelOf(b.plotId))))
-    .map((r) => {
-      const total = (running.get(r.plotId) ?? 0) + r.litres;
-      running.set(r.plotId, total);
-      const p = byPlot.get(r.plotId);
-      return { plotId: r.plotId, label: p?.label ?? '', treatment: p?.treatment ?? null, day: r.day, cumulativeL: total };
-    });
+  const dailyByPlot = new Map<string, { day: string; litres: number }[]>();
+  for (const r of input.dailyWater) {
+    const own = dailyByPlot.get(r.plotId);
+    if (own) own.push(r);
+    else dailyByPlot.set(r.plotId, [r]);
+  }
+  const cumulative: CumulativeSeries[] = [...dailyByPlot].map(([plotId, days]) => {
+    let total = 0;
+    const points = days
+      .sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : 0))
+      .map((r): [string, number] => [r.day, (total += r.litres)]);
+    const p = byPlot.get(plotId);
+    return { plotId, label: p?.label ?? '', treatment: p?.treatment ?? null, points };
+  });
+  cumulative.sort((a, b) => byLabel(a.label, b.label) || (a.plotId < b.plotId ? -1 : a.plotId > b.plotId ? 1 : 0));
 
   // Crop water need: ET0 per weather day (FAO-56), Kc by stage, ETc; weekly against water applied.
   const kcCrop = cropKc(input.trial.crop, input.trial.kcOverrides);
   if (!kcCrop) warnings.push('No FAO-56 crop coefficients for this crop: ET0 is shown, but not the crop water need (ETc).');
   const methods: Record<Et0Method, number> = { 'penman-monteith': 0, hargreaves: 0 };
   const weeks = new Map<string, WeekRow>();
+  // A season has ~150 days but ~3,000 daily rows: compute each day's week once.
+  const weekOfDay = new Map<string, string>();
   const weekFor = (day: string) => {
-    const key = weekStart(day);
+    let key = weekOfDay.get(day);
+    if (key === undefined) {
+      key = weekStart(day);
+      weekOfDay.set(day, key);
+    }
     let w = weeks.get(key);
     if (!w) {
       w = { weekStart: key, et0Mm: 0, etcMm: kcCrop ? 0 : null, rainMm: 0, appliedMm: Object.fromEntries(treatmentNames.map((t) => [t, 0])) };

@@ -47,7 +47,7 @@ export function cumulativeWaterSpec(a: TrialAnalysis, treatments: string[], o: C
   const vol = unitLabel('volume', o.units);
   return {
     ...base(o, 260),
-    data: { values: a.cumulative.map((r) => ({ plot: r.label, treatment: r.treatment ?? 'unassigned', day: r.day, value: toDisplay(r.cumulativeL, 'volume', o.units) })) },
+    data: { values: a.cumulative.flatMap((s) => s.points.map(([day, litres]) => ({ plot: s.label, treatment: s.treatment ?? 'unassigned', day, value: toDisplay(litres, 'volume', o.units) }))) },
     mark: { type: 'line', interpolate: 'step-after' },
     encoding: {
       x: { field: 'day', type: 'temporal', title: 'Date' },

@@ -104,9 +104,13 @@ export type DateFormat = 'iso' | 'dmy' | 'mdy';
 const isoRe = /^(\d{4})-(\d{2})-(\d{2})(?:[T ](\d{1,2}):(\d{2})(?::(\d{2})(?:\.\d+)?)?\s*(Z|[+-]\d{2}:?\d{2})?)?$/;
 const slashRe = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})(?:[ T](\d{1,2}):(\d{2})(?::(\d{2}))?)?$/;
 
+const monthDays = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/** Gregorian calendar: February has 29 days in years divisible by 4, except centuries not divisible by 400. */
 function validYmd(y: number, m: number, d: number): boolean {
   if (m < 1 || m > 12 || d < 1) return false;
-  return d <= new Date(Date.UTC(y, m, 0)).getUTCDate();
+  const leap = m === 2 && y % 4 === 0 && (y % 100 !== 0 || y % 400 === 0);
+  return d <= monthDays[m - 1]! + (leap ? 1 : 0);
 }
 
 export interface DateDetection {
@@ -222,7 +226,7 @@ export type NormalisedRow = Record<string, string | number | boolean | null> & {
 
 function parseNumber(raw: string): number | null {
   // Accept a decimal comma when there is no other separator ("2,5").
-  const s = raw.trim().replace(/\s/g, '');
+  const s = /\s/.test(raw) ? raw.replace(/\s/g, '') : raw;
   const v = /^-?\d+,\d+$/.test(s) ? Number(s.replace(',', '.')) : Number(s);
   return s === '' || !Number.isFinite(v) ? null : v;
 }

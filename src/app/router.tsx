@@ -1,8 +1,9 @@
 import type { QueryClient } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
 import { createBrowserRouter, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Role } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
-import { usersQueryOptions } from '@/features/admin/api/get-users';
+import { usersParamsFrom, usersQueryOptions } from '@/features/admin/api/get-users';
 import { healthQueryOptions } from '@/features/admin/api/get-health';
 import { outboxQueryOptions } from '@/features/admin/api/get-outbox';
 import { sessionQueryOptions } from '@/features/auth/api/get-session';
@@ -19,24 +20,43 @@ import { potsQueryOptions } from '@/features/pots/api/get-pots';
 import { plotsQueryOptions } from '@/features/trials/api/get-plots';
 import { trialQueryOptions } from '@/features/trials/api/get-trial';
 import { trialsQueryOptions } from '@/features/trials/api/get-trials';
-import { AccountPage } from './routes/account';
-import { AdminOutboxPage, AdminPage, usersParamsFrom } from './routes/admin';
 import { ForgotPasswordPage, ResetPasswordPage, SignInPage, SignUpPage, VerifyEmailPage } from './routes/auth-pages';
-import { CohortPage } from './routes/cohort';
-import { GardenPage } from './routes/garden';
-import { GuidesRoute } from './routes/guides';
-import { NewGardenPage } from './routes/new-garden';
-import { PlannerPage } from './routes/planner';
-import { PotsPage } from './routes/pots';
-import { RoundPage } from './routes/round';
-import { TrialPage } from './routes/trial';
 import { UnsubscribePage, unsubscribePath } from './routes/unsubscribe';
-import { CohortsPage } from './routes/cohorts';
 import { RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
-import { HomePage } from './routes/home';
-import { JoinPage } from './routes/join';
 import { NotFoundPage } from './routes/not-found';
+import { RootLayout } from './routes/root-layout';
 import { RouteErrorPage } from './routes/route-error';
+
+/**
+ * A page loaded on first use (its own chunk, with its feature code): `lazy` for React Router.
+ * Only the public pages, the guards and the error pages ship with the first page; every signed-in
+ * page is fetched when someone goes there (the service worker precaches the chunks for offline use,
+ * vite.config.ts). While one loads, the current page stays up under RootLayout's progress bar.
+ */
+const lazyPage =
+  <M,>(load: () => Promise<M>, pick: (m: M) => ComponentType) =>
+  async () => ({ Component: pick(await load().catch(reloadOnceForNewBuild)) });
+
+const RELOADED_FLAG = 'seepwise.chunk-reload';
+
+/**
+ * A page's chunk did not load. After a new release the old build's chunks are gone from the server
+ * and the service worker's cache, so a tab opened before it asks for files that no longer exist:
+ * one reload picks up the new build. If it fails again (offline and never cached, a real fault),
+ * the error goes to the route error page.
+ */
+function reloadOnceForNewBuild(err: unknown): never {
+  try {
+    const last = Number(sessionStorage.getItem(RELOADED_FLAG)) || 0;
+    if (Date.now() - last > 30_000) {
+      sessionStorage.setItem(RELOADED_FLAG, String(Date.now()));
+      window.location.reload();
+    }
+  } catch {
+    /* no sessionStorage: show the error */
+  }
+  throw err;
+}
 
 export function createAppRouter(queryClient: QueryClient) {
   const sessionLoader = async () => {
@@ -62,6 +82,7 @@ export function createAppRouter(queryClient: QueryClient) {
   return createBrowserRouter([
     {
       loader: sessionLoader,
+      element: <RootLayout />,
       hydrateFallbackElement: <p className="p-8">Loading…</p>,
       errorElement: <RouteErrorPage />,
       children: [
@@ -78,40 +99,40 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: unsubscribePath, element: <UnsubscribePage /> },
         {
           element: <ShellIfSignedIn />,
-          children: [{ path: paths.joinCohort, element: <JoinPage /> }],
+          children: [{ path: paths.joinCohort, lazy: lazyPage(() => import('./routes/join'), (m) => m.JoinPage) }],
         },
         {
           element: <RequireAuth />,
           children: [
             {
               path: paths.home,
-              element: <HomePage />,
+              lazy: lazyPage(() => import('./routes/home'), (m) => m.HomePage),
               loader: prefetch(() => [ensure(cohortsQueryOptions()), ensure(gardensQueryOptions()), ensure(trialsQueryOptions())]),
             },
-            { path: paths.newGarden, element: <NewGardenPage /> },
+            { path: paths.newGarden, lazy: lazyPage(() => import('./routes/new-garden'), (m) => m.NewGardenPage) },
             {
               path: paths.garden(':gardenId'),
-              element: <GardenPage />,
+              lazy: lazyPage(() => import('./routes/garden'), (m) => m.GardenPage),
               loader: prefetch(({ params }) => [ensure(gardenQueryOptions(params.gardenId!)), ensure(trialsQueryOptions(params.gardenId!))]),
             },
             {
               path: paths.trial(':trialId'),
-              element: <TrialPage />,
+              lazy: lazyPage(() => import('./routes/trial'), (m) => m.TrialPage),
               loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(plotsQueryOptions(params.trialId!)), ensure(trialAnalysisQueryOptions(params.trialId!))]),
             },
             {
               path: paths.round(':trialId'),
-              element: <RoundPage />,
+              lazy: lazyPage(() => import('./routes/round'), (m) => m.RoundPage),
               loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(roundQueryOptions(params.trialId!))]),
             },
-            { path: paths.pots, element: <PotsPage />, loader: prefetch(() => [ensure(potsQueryOptions()), ensure(trialsQueryOptions())]) },
-            { path: paths.planner, element: <PlannerPage />, loader: prefetch(() => [ensure(trialsQueryOptions()), ensure(potsQueryOptions())]) },
-            { path: paths.guides, element: <GuidesRoute /> },
-            { path: paths.account, element: <AccountPage /> },
-            { path: paths.cohorts, element: <CohortsPage />, loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
+            { path: paths.pots, lazy: lazyPage(() => import('./routes/pots'), (m) => m.PotsPage), loader: prefetch(() => [ensure(potsQueryOptions()), ensure(trialsQueryOptions())]) },
+            { path: paths.planner, lazy: lazyPage(() => import('./routes/planner'), (m) => m.PlannerPage), loader: prefetch(() => [ensure(trialsQueryOptions()), ensure(potsQueryOptions())]) },
+            { path: paths.guides, lazy: lazyPage(() => import('./routes/guides'), (m) => m.GuidesRoute) },
+            { path: paths.account, lazy: lazyPage(() => import('./routes/account'), (m) => m.AccountPage) },
+            { path: paths.cohorts, lazy: lazyPage(() => import('./routes/cohorts'), (m) => m.CohortsPage), loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
             {
               path: paths.cohort(':cohortId'),
-              element: <CohortPage />,
+              lazy: lazyPage(() => import('./routes/cohort'), (m) => m.CohortPage),
               loader: prefetch(({ params, request }) => {
                 // The pooled results start with the page but are not awaited: they may take longer than the cohort itself.
                 void queryClient.prefetchQuery(cohortResultsQueryOptions(params.cohortId!, resultsQueryFromSearch(new URL(request.url).searchParams)));
@@ -125,10 +146,10 @@ export function createAppRouter(queryClient: QueryClient) {
           children: [
             {
               path: paths.admin,
-              element: <AdminPage />,
+              lazy: lazyPage(() => import('./routes/admin'), (m) => m.AdminPage),
               loader: prefetch(({ request }) => [ensure(healthQueryOptions()), ensure(usersQueryOptions(usersParamsFrom(new URL(request.url).searchParams)))], ['admin']),
             },
-            { path: paths.adminOutbox, element: <AdminOutboxPage />, loader: prefetch(() => [ensure(outboxQueryOptions())], ['admin']) },
+            { path: paths.adminOutbox, lazy: lazyPage(() => import('./routes/admin'), (m) => m.AdminOutboxPage), loader: prefetch(() => [ensure(outboxQueryOptions())], ['admin']) },
           ],
         },
         { path: '*', element: <NotFoundPage /> },

@@ -1,13 +1,18 @@
+import { useId } from 'react';
 import { useTranslation } from 'react-i18next';
 import { LANGUAGES, currentLanguage, setLanguage, type Language } from './index';
 
 /** The language picker of the public pages (signed in, the account setting decides). */
 export function LanguageSwitch({ className }: { className?: string }) {
   const { t } = useTranslation();
+  const id = useId();
   return (
-    <label className={className}>
-      <span className="mr-2 text-sm text-ink-muted">{t(($) => $.language.label)}</span>
+    <div className={className}>
+      <label htmlFor={id} className="mr-2 text-sm text-ink-muted">
+        {t(($) => $.language.label)}
+      </label>
       <select
+        id={id}
         className="min-h-10 rounded-lg border border-sand-300 bg-white px-2 text-sm"
         value={currentLanguage()}
         onChange={(e) => void setLanguage(e.target.value as Language)}
@@ -18,6 +23,6 @@ export function LanguageSwitch({ className }: { className?: string }) {
           </option>
         ))}
       </select>
-    </label>
+    </div>
   );
 }

@@ -7,12 +7,18 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runBench, type BenchResults } from '../../bench/bench';
+import { isSkipped, runBench, type BenchResults } from '../../bench/bench';
 import { createTestDatabase } from '../helpers/test-db';
 
 let db: Awaited<ReturnType<typeof createTestDatabase>>;
 let dir: string;
 let results: BenchResults;
+
+/** A figure the run measured (every figure is selected here); fails with the skip reason otherwise. */
+function measured<T extends object>(f: T | { skipped: string }): T {
+  if (isSkipped(f)) throw new Error(`figure skipped: ${f.skipped}`);
+  return f;
+}
 
 beforeAll(async () => {
   db = await createTestDatabase();
@@ -27,7 +33,7 @@ afterAll(async () => {
 
 describe('npm run bench -- --scale 0.001 --skip-browser', () => {
   it('loads a tiny scenario through the same code as the full one', () => {
-    const { half, full, load } = results.scenario;
+    const { half, full, load } = measured(results.scenario);
     expect(full.trials).toBeGreaterThan(half.trials);
     expect(full.logRows).toBeGreaterThan(half.logRows);
     expect(full.logRows).toBeLessThan(5000);
@@ -38,22 +44,26 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
   it('has every figure at both sizes', () => {
     for (const size of ['half', 'full'] as const) {
       const f = results.figures[size];
-      expect(f.analysis.routeMs.n).toBeGreaterThan(0);
-      expect(f.analysis.bareSqlMs.n).toBe(f.analysis.routeMs.n);
-      expect(f.analysis.responseBytes).toBeGreaterThan(0);
+      const analysis = measured(f.analysis);
+      const exported = measured(f.export);
+      expect(analysis.routeMs.n).toBeGreaterThan(0);
+      expect(analysis.bareSqlMs.n).toBe(analysis.routeMs.n);
+      expect(analysis.responseBytes).toBeGreaterThan(0);
       // The cohort results route is measured when this checkout has it, and says why when it does not.
       expect('routeMs' in f.cohort || 'skipped' in f.cohort).toBe(true);
-      expect(f.export.rows).toBeGreaterThan(0);
-      expect(f.export.memory.hwmMb).toBeGreaterThan(0);
+      expect(exported.rows).toBeGreaterThan(0);
+      expect(exported.memory.hwmMb).toBeGreaterThan(0);
     }
-    expect(results.figures.full.export.rows).toBe(results.scenario.full.networkCohortWaterEvents);
-    const { writes } = results.figures;
+    const scenario = measured(results.scenario);
+    expect(measured(results.figures.full.export).rows).toBe(scenario.full.networkCohortWaterEvents);
+    const writes = measured(results.figures.writes);
     expect(writes.api.ok).toBe(writes.api.requests);
     expect(writes.api.rowsWritten).toBe(writes.api.ok);
     expect(writes.direct.rows).toBe(writes.api.ok);
-    expect(results.roundTrips.analysis.route.length).toBeGreaterThanOrEqual(results.roundTrips.analysis.bare);
-    expect(results.roundTrips.write.route.some((q) => q.startsWith('INSERT INTO water_events'))).toBe(true);
-    expect(results.figures.import.rows).toBe(results.scenario.plan.importRows);
+    const trips = { analysis: measured(results.roundTrips.analysis), write: measured(results.roundTrips.write) };
+    expect(trips.analysis.route.length).toBeGreaterThanOrEqual(trips.analysis.bare);
+    expect(trips.write.route.some((q) => q.startsWith('INSERT INTO water_events'))).toBe(true);
+    expect(measured(results.figures.import).rows).toBe(scenario.plan.importRows);
     expect(results.figures.client).toEqual({ skipped: 'browser step skipped (--skip-browser)' });
   });
 

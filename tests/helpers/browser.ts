@@ -1,21 +1,15 @@
-import express from 'express';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { serveBuiltClient } from '../../server/http/built-client';
 import { listen, startTestApp, type TestApp } from './test-app';
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 export const ARTIFACTS = path.resolve('tests/artifacts');
 
 /** Serves the built client from dist/ behind the API, as production does. */
-function builtClient(): express.RequestHandler[] {
-  const dist = path.resolve('dist');
-  return [
-    express.static(dist, { index: false }),
-    (req, res, next) => (req.method === 'GET' ? res.sendFile(path.join(dist, 'index.html')) : next()),
-  ];
-}
+const builtClient = () => serveBuiltClient(path.resolve('dist'));
 
 export interface BrowserEnv {
   t: TestApp;

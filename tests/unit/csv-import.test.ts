@@ -19,6 +19,13 @@ describe('detectDateFormat', () => {
     expect(detectDateFormat(['29/02/2027']).candidates).toEqual([]);
     expect(detectDateFormat(['29/02/2028']).candidates).toEqual(['dmy']); // 2028 is a leap year
   });
+
+  it('follows the Gregorian leap-year rule for centuries (ISO 8601 uses the Gregorian calendar: 2000 is a leap year, 2100 is not)', () => {
+    expect(detectDateFormat(['2000-02-29']).format).toBe('iso');
+    expect(detectDateFormat(['2100-02-29']).format).toBeNull();
+    expect(detectDateFormat(['2024-12-31', '2024-06-30']).format).toBe('iso');
+    expect(detectDateFormat(['2024-06-31']).format).toBeNull();
+  });
 });
 
 describe('parseInstant', () => {

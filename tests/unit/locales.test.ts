@@ -71,7 +71,7 @@ describe('translation files', () => {
         for (const [k, v] of strings) {
           const b = k.replace(PLURAL, '');
           const set = m.get(b) ?? new Set<string>();
-          for (const p of placeholders(v)) set.add(p);
+          for (const p of placeholders(v)) if (p) set.add(p);
           m.set(b, set);
         }
         return m;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { describeComparison } from '@shared/analysis/narrative';
 import { analyseTrial, weekStart, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
+import { cumulativeWaterSpec } from '@shared/charts/trial-charts';
 
 // MASS::shoes (Box, Hunter & Hunter 1978, p. 100): material A and B worn by the same boy.
 const shoesA = [13.2, 8.2, 10.9, 14.3, 10.7, 6.6, 9.5, 10.8, 8.8, 13.3];
@@ -56,6 +57,43 @@ describe('analyseTrial', () => {
     expect(r.moisture.stress).toEqual([
       { treatment: 'olla', method: 'vwc', threshold: 15, daysBelow: 1, daysMeasured: 2 },
       { treatment: 'surface', method: 'tensiometer', threshold: 50, daysBelow: 1, daysMeasured: 2 },
+    ]);
+  });
+
+  it('keeps one running total per plot, in day order, plots in numeric label order; weekly depths per ISO week', () => {
+    // Eleven pairs so that labels "2o" and "10o" test numeric order. Daily rows arrive out of order.
+    const pairs = Array.from({ length: 11 }, (): [number, number] => [10, 20]);
+    const r = analyseTrial(
+      input(pairs, {
+        dailyWater: [
+          { plotId: 'o10', day: '2026-06-03', litres: 2 },
+          { plotId: 'o2', day: '2026-06-08', litres: 4 },
+          { plotId: 'o10', day: '2026-06-01', litres: 1 },
+          { plotId: 's2', day: '2026-06-02', litres: 3.5 },
+          { plotId: 'o2', day: '2026-06-01', litres: 0.5 },
+          { plotId: 'o10', day: '2026-06-08', litres: 4 },
+        ],
+      }),
+    );
+    expect(r.cumulative).toEqual([
+      { plotId: 'o2', label: '2o', treatment: 'olla', points: [['2026-06-01', 0.5], ['2026-06-08', 4.5]] },
+      { plotId: 's2', label: '2s', treatment: 'surface', points: [['2026-06-02', 3.5]] },
+      { plotId: 'o10', label: '10o', treatment: 'olla', points: [['2026-06-01', 1], ['2026-06-03', 3], ['2026-06-08', 7]] },
+    ]);
+    // Depth = litres over the treatment's area (1 L on 1 m² is 1 mm, by definition); each treatment has 11 plots of 2 m².
+    expect(r.cropWater.weekly.map((w) => [w.weekStart, w.appliedMm.olla, w.appliedMm.surface])).toEqual([
+      ['2026-06-01', expect.closeTo(3.5 / 22, 12), expect.closeTo(3.5 / 22, 12)],
+      ['2026-06-08', expect.closeTo(8 / 22, 12), 0],
+    ]);
+    // The chart draws the same points, one row per plot and day.
+    const values = (cumulativeWaterSpec(r, ['olla', 'surface'], { units: 'metric', width: 400 }).data as { values: unknown[] }).values;
+    expect(values).toEqual([
+      { plot: '2o', treatment: 'olla', day: '2026-06-01', value: 0.5 },
+      { plot: '2o', treatment: 'olla', day: '2026-06-08', value: 4.5 },
+      { plot: '2s', treatment: 'surface', day: '2026-06-02', value: 3.5 },
+      { plot: '10o', treatment: 'olla', day: '2026-06-01', value: 1 },
+      { plot: '10o', treatment: 'olla', day: '2026-06-03', value: 3 },
+      { plot: '10o', treatment: 'olla', day: '2026-06-08', value: 7 },
     ]);
   });
 

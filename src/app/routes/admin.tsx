@@ -5,16 +5,8 @@ import { useCurrentUser } from '@/features/auth/api/get-session';
 import { HealthCard } from '@/features/admin/components/health-card';
 import { OutboxList } from '@/features/admin/components/outbox-list';
 import { UsersTable } from '@/features/admin/components/users-table';
-import type { UsersParams } from '@/features/admin/api/get-users';
+import { usersParamsFrom } from '@/features/admin/api/get-users';
 import { cn } from '@/lib/utils';
-
-export const ADMIN_PAGE_SIZE = 25;
-
-/** Search and page live in the address, so a filtered list can be reloaded or shared. */
-export function usersParamsFrom(search: URLSearchParams): UsersParams {
-  const page = Number(search.get('page'));
-  return { q: search.get('q')?.trim() || undefined, page: Number.isInteger(page) && page > 0 ? page : 1, pageSize: ADMIN_PAGE_SIZE };
-}
 
 function AdminTabs() {
   const tab = ({ isActive }: { isActive: boolean }) =>

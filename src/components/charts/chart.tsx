@@ -18,11 +18,14 @@ export function Chart({ title, takeaway, spec, fileName, alternative }: { title:
         <h3 className="text-base">{title}</h3>
         <p className="text-sm text-ink-muted">{takeaway}</p>
       </figcaption>
-      <div className="overflow-x-auto" role="img" aria-label={`${title}. ${typeof takeaway === 'string' ? takeaway : ''} The same numbers are in the table below.`}>
-        <Suspense fallback={<p role="status" className="py-8 text-center text-sm text-ink-muted">Drawing the chart…</p>}>
-          <VegaChart spec={{ ...spec, config: { ...chartConfig, ...(spec as { config?: object }).config } } as VisualizationSpec} fileName={fileName} />
-        </Suspense>
-      </div>
+      <Suspense fallback={<p role="status" className="py-8 text-center text-sm text-ink-muted">Drawing the chart…</p>}>
+        <VegaChart
+          spec={{ ...spec, config: { ...chartConfig, ...(spec as { config?: object }).config } } as VisualizationSpec}
+          fileName={fileName}
+          title={title}
+          label={`${title}. ${typeof takeaway === 'string' ? takeaway : ''} The same numbers are in the table below.`}
+        />
+      </Suspense>
       <details className="text-sm">
         <summary className="cursor-pointer text-terracotta-700 underline">Show the numbers as a table</summary>
         <div className="mt-2 overflow-x-auto">{alternative}</div>

@@ -8,6 +8,14 @@ export interface UsersParams {
   pageSize: number;
 }
 
+export const ADMIN_PAGE_SIZE = 25;
+
+/** Search and page live in the address, so a filtered list can be reloaded or shared (the admin page and its loader). */
+export function usersParamsFrom(search: URLSearchParams): UsersParams {
+  const page = Number(search.get('page'));
+  return { q: search.get('q')?.trim() || undefined, page: Number.isInteger(page) && page > 0 ? page : 1, pageSize: ADMIN_PAGE_SIZE };
+}
+
 export interface UsersPage {
   users: AdminUser[];
   total: number;

@@ -15,7 +15,7 @@ function uptime(s: number): string {
 
 function Fact({ label, value }: { label: string; value: string }) {
   return (
-    <div className="flex items-baseline justify-between gap-3 border-b border-sand-100 py-1.5 last:border-0">
+    <div className="flex break-inside-avoid items-baseline justify-between gap-3 border-b border-sand-100 py-1.5">
       <dt className="text-sm text-ink-muted">{label}</dt>
       <dd className="num text-sm font-medium">{value}</dd>
     </div>
@@ -45,22 +45,19 @@ export function HealthCard() {
             <span aria-hidden="true" className={`inline-block size-3 rounded-full ${health.data.database.status === 'up' ? 'bg-sage-500' : 'bg-red-700'}`} />
             Database {health.data.database.status === 'up' ? 'is up' : health.data.database.status}, answered in {health.data.database.latencyMs} ms
           </p>
-          <dl className="grid gap-x-8 sm:grid-cols-2">
-            <div>
-              <Fact label="Accounts" value={String(health.data.counts.users)} />
-              <Fact label="Cohorts" value={String(health.data.counts.cohorts)} />
-              <Fact label="Active sessions" value={String(health.data.counts.activeSessions)} />
-              <Fact label="Migrations applied" value={String(health.data.database.migrationsApplied)} />
-            </div>
-            <div>
-              <Fact label="Database" value={health.data.database.version} />
-              <Fact label="Server up for" value={uptime(health.data.process.uptimeS)} />
-              <Fact label="Memory (resident / heap)" value={`${health.data.process.rssMb} / ${health.data.process.heapUsedMb} MB`} />
-              <Fact label="Node" value={health.data.process.node} />
-              <Fact label="Mail" value={health.data.mail.mode} />
-            </div>
+          {/* One <dl> of <div>-wrapped pairs (a <dl> allows no deeper nesting); two columns by CSS. */}
+          <dl className="gap-x-8 sm:columns-2">
+            <Fact label="Accounts" value={String(health.data.counts.users)} />
+            <Fact label="Cohorts" value={String(health.data.counts.cohorts)} />
+            <Fact label="Active sessions" value={String(health.data.counts.activeSessions)} />
+            <Fact label="Migrations applied" value={String(health.data.database.migrationsApplied)} />
+            <Fact label="Database" value={health.data.database.version} />
+            <Fact label="Server up for" value={uptime(health.data.process.uptimeS)} />
+            <Fact label="Memory (resident / heap)" value={`${health.data.process.rssMb} / ${health.data.process.heapUsedMb} MB`} />
+            <Fact label="Node" value={health.data.process.node} />
+            <Fact label="Mail" value={health.data.mail.mode} />
           </dl>
-          <p className="text-xs text-ink-faint">Checked {formatDateTime(new Date(health.dataUpdatedAt).toISOString())}</p>
+          <p className="text-xs text-ink-muted">Checked {formatDateTime(new Date(health.dataUpdatedAt).toISOString())}</p>
         </>
       )}
     </Card>

@@ -99,7 +99,7 @@ function ComparisonBlock({ c, data }: { c: Comparison; data: TrialAnalysisRespon
           <p className="text-3xl font-semibold">{c.wueRatio === null ? '—' : fmt(c.wueRatio, 2)}</p>
         </Card>
       </div>
-      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={`Paired comparison, ${c.treatment} − ${c.control} (scrolls sideways)`}>
         <table className="w-full text-sm">
           <caption className="px-3 pt-3 text-left font-semibold">Paired comparison across pairs (differences are {c.treatment} − {c.control})</caption>
           <thead className="text-left text-ink-muted">
@@ -192,7 +192,7 @@ export function ResultsTab({ trialId, treatments }: { trialId: string; treatment
 
       <section className="space-y-3" aria-labelledby="totals-heading">
         <h2 id="totals-heading">Totals by treatment</h2>
-        <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+        <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label="Totals by treatment (scrolls sideways)">
           <table className="w-full text-sm">
             <thead className="bg-sand-100 text-left">
               <tr>

@@ -96,7 +96,7 @@ export function Sensitivity({ results, effect }: { results: CohortResults; effec
                 ? ' Every estimate with one trial left out stays inside the pooled confidence interval: no single trial carries the result.'
                 : ` Without ${outside.map((r) => labels[r.omittedTrialId] ?? r.pseudonym).join(', ')} the estimate leaves the pooled confidence interval: the result leans on ${outside.length === 1 ? 'that trial' : 'those trials'}, so look at ${outside.length === 1 ? 'it' : 'them'} closely.`}
             </p>
-            <div className="overflow-x-auto rounded-card border border-sand-200 bg-white">
+            <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={`Pooled ${name} with each trial left out (scrolls sideways)`}>
               <table className="w-full text-sm">
                 <caption className="sr-only">Pooled {name} with each trial left out, largest change first</caption>
                 <thead className="bg-sand-100 text-left">

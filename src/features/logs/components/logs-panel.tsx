@@ -102,7 +102,12 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
         </SelectField>
       </div>
       {logs.isError ? <Alert tone="error">{logs.error.message}</Alert> : null}
-      <div className="relative overflow-x-auto rounded-card border border-sand-200 bg-white">
+      <div
+        className="relative overflow-x-auto rounded-card border border-sand-200 bg-white"
+        tabIndex={0}
+        role="region"
+        aria-label={t(($) => $.panel.scrollRegion, { kind: t(($) => $.kinds[kind]) })}
+      >
         <table className="w-full text-sm">
           <caption className="sr-only">{t(($) => $.panel.caption, { kind: t(($) => $.kinds[kind]) })}</caption>
           <thead className="bg-sand-100 text-left">
