@@ -85,6 +85,8 @@ describe('the notebook in Spanish', () => {
       ['B1', 'B'],
       ['B2', 'B'],
     ]) {
+      // The form empties its label once the previous plot is saved; typing before that would be wiped.
+      await expect.poll(() => page.getByLabel('Etiqueta').inputValue()).toBe('');
       await page.getByLabel('Etiqueta').fill(label!);
       await page.getByLabel('Par', { exact: true }).fill(pair!);
       await page.getByLabel('Superficie (m²)').fill('2,5');
