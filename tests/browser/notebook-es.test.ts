@@ -124,7 +124,7 @@ describe('the notebook in Spanish', () => {
     await page.waitForLoadState('networkidle');
     await page.getByRole('button', { name: '8 L', exact: true }).first().click();
     await page.getByRole('button', { name: '✓ 8 L', pressed: true }).waitFor();
-    await page.getByRole('button', { name: /^Más agua para Olla \d · parcela [AB]1$/ }).click();
+    await page.getByRole('button', { name: /^Más agua para Olla \d · parcela [AB][12]$/ }).click();
     await page.getByRole('button', { name: '✓ 8,5 L' }).waitFor();
     await fitsTheScreen('es-round-360');
     await page.getByRole('button', { name: 'Guardar 1 registro' }).click();
