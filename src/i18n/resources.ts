@@ -11,10 +11,17 @@ import type charts from '@/locales/en/charts.json';
 import type cohortResults from '@/locales/en/cohortResults.json';
 import type cohorts from '@/locales/en/cohorts.json';
 import type common from '@/locales/en/common.json';
+import type gardens from '@/locales/en/gardens.json';
 import type guides from '@/locales/en/guides.json';
 import type home from '@/locales/en/home.json';
+import type importNs from '@/locales/en/import.json';
+import type logs from '@/locales/en/logs.json';
 import type notifications from '@/locales/en/notifications.json';
 import type offline from '@/locales/en/offline.json';
+import type planner from '@/locales/en/planner.json';
+import type pots from '@/locales/en/pots.json';
+import type round from '@/locales/en/round.json';
+import type trials from '@/locales/en/trials.json';
 
 export type enResources = {
   common: typeof common;
@@ -29,4 +36,11 @@ export type enResources = {
   analysis: typeof analysis;
   charts: typeof charts;
   cohortResults: typeof cohortResults;
+  gardens: typeof gardens;
+  trials: typeof trials;
+  logs: typeof logs;
+  round: typeof round;
+  pots: typeof pots;
+  planner: typeof planner;
+  import: typeof importNs;
 };
