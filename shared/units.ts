@@ -8,14 +8,14 @@
  *   1 US gallon = 231 in³ = 3.785411784 L, 1 lb = 0.45359237 kg,
  *   °F = °C × 9/5 + 32.
  */
-import { z } from 'zod';
 import { AnalysisInputError } from './analysis/input-error';
 
-export const unitSystemSchema = z.enum(['metric', 'us']);
-export type UnitSystem = z.infer<typeof unitSystemSchema>;
+// Plain lists, no zod: the client's first page uses these conversions (the schemas are in shared/schemas/units.ts).
+export const UNIT_SYSTEMS = ['metric', 'us'] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
-export const quantitySchema = z.enum(['volume', 'mass', 'length-small', 'length', 'area', 'temperature', 'rate']);
-export type Quantity = z.infer<typeof quantitySchema>;
+export const QUANTITIES = ['volume', 'mass', 'length-small', 'length', 'area', 'temperature', 'rate'] as const;
+export type Quantity = (typeof QUANTITIES)[number];
 
 export const MM_PER_INCH = 25.4;
 export const M_PER_FOOT = 0.3048;

@@ -30,7 +30,7 @@ export function dummyVerify(password: string): Promise<boolean> {
 export function assertPasswordAcceptable(password: string, email?: string) {
   if (isCommonPassword(password) || (email && password.toLowerCase() === email.toLowerCase())) {
     throw AppError.validation('That password is too easy to guess.', [
-      { path: 'password', message: 'That password is on the list of most common passwords. Choose another one.' },
-    ]);
+      { path: 'password', message: 'That password is on the list of most common passwords. Choose another one.', reason: 'password_common' },
+    ]).because('password_common');
   }
 }

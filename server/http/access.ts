@@ -46,10 +46,10 @@ export function authorize(rule: Access, ds: DataSource, resolvers: Record<string
   return (req, res, next) => {
     if (rule.kind === 'public') return next();
     const user = req.user;
-    if (!user) return next(new AppError('unauthenticated', 'Please sign in to do that.'));
+    if (!user) return next(new AppError('unauthenticated', 'Please sign in to do that.').because('sign_in_required'));
     if (rule.kind === 'signed-in') return next();
     if (rule.kind === 'role') {
-      return rule.roles.includes(user.role) ? next() : next(AppError.forbidden('Your account role cannot do that.'));
+      return rule.roles.includes(user.role) ? next() : next(AppError.forbidden('Your account role cannot do that.').because('role_not_allowed'));
     }
     const id = req.params[rule.param];
     const what = rule.kind === 'resource' ? rule.resource : 'Cohort';

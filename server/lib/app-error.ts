@@ -14,9 +14,12 @@ const statusFor: Record<ErrorCode, number> = {
   internal_error: 500,
 };
 
-/** An expected failure: becomes `{ error: { code, message, details } }` with its status. */
+/** An expected failure: becomes `{ error: { code, message, reason?, params?, details } }` with its status. */
 export class AppError extends Error {
   readonly status: number;
+  /** The exact case, stable snake_case, for the client to translate (shared/api-error.ts). */
+  reason?: string;
+  params?: Record<string, string | number>;
   constructor(
     readonly code: ErrorCode,
     message: string,
@@ -26,11 +29,18 @@ export class AppError extends Error {
     this.status = statusFor[code];
   }
 
-  static notFound(what: string) {
-    return new AppError('not_found', `${what} was not found.`);
+  /** Names the exact case: `throw new AppError('conflict', 'This cohort is full…').because('cohort_full')`. */
+  because(reason: string, params?: Record<string, string | number>): this {
+    this.reason = reason;
+    this.params = params;
+    return this;
   }
-  static forbidden(message = 'You do not have permission to do that.') {
-    return new AppError('forbidden', message);
+
+  static notFound(what: string) {
+    return new AppError('not_found', `${what} was not found.`).because('not_found');
+  }
+  static forbidden(message?: string) {
+    return message ? new AppError('forbidden', message) : new AppError('forbidden', 'You do not have permission to do that.').because('not_allowed');
   }
   static validation(message: string, details?: unknown) {
     return new AppError('validation_failed', message, details);

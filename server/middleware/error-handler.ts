@@ -26,7 +26,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (err instanceof AppError) {
-      res.status(err.status).json({ error: { code: err.code, message: err.message, details: err.details } });
+      res.status(err.status).json({ error: { code: err.code, message: err.message, reason: err.reason, params: err.params, details: err.details } });
       return;
     }
     if (err instanceof AnalysisInputError) {
@@ -37,11 +37,11 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     const e = err as { status?: number; statusCode?: number; type?: string; code?: string; message?: string };
     const status = e.status ?? e.statusCode;
     if (e.type === 'entity.too.large' || e.code === 'LIMIT_FILE_SIZE') {
-      res.status(413).json({ error: { code: 'payload_too_large', message: 'The request is larger than allowed.' } });
+      res.status(413).json({ error: { code: 'payload_too_large', message: 'The request is larger than allowed.', reason: 'request_too_large' } });
       return;
     }
     if (e.type === 'entity.parse.failed') {
-      res.status(400).json({ error: { code: 'validation_failed', message: 'The request body is not valid JSON.' } });
+      res.status(400).json({ error: { code: 'validation_failed', message: 'The request body is not valid JSON.', reason: 'invalid_json' } });
       return;
     }
     if (status && status >= 400 && status < 500) {

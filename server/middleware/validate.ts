@@ -4,9 +4,21 @@ import { AppError } from '../lib/app-error';
 
 type Part = 'body' | 'query' | 'params';
 
-/** Turns zod issues into `{ path, message }` pairs for field-level messages. */
+/** What the client needs to word an issue itself: zod's code and the limits it names (shared/api-error.ts `fieldIssueSchema`). */
+function issueFacts(i: z.core.$ZodIssue): Record<string, string | number | boolean> {
+  const facts: Record<string, string | number | boolean> = { code: i.code };
+  for (const k of ['origin', 'minimum', 'maximum', 'inclusive', 'format', 'expected', 'divisor'] as const) {
+    const v = (i as unknown as Record<string, unknown>)[k];
+    if (typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean') facts[k] = v;
+    else if (typeof v === 'bigint') facts[k] = Number(v);
+    else if (v instanceof Date) facts[k] = v.toISOString();
+  }
+  return facts;
+}
+
+/** Turns zod issues into `{ path, message, issue }` for field-level messages. */
 export function zodIssues(error: z.ZodError) {
-  return error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message }));
+  return error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message, issue: issueFacts(i) }));
 }
 
 /**
@@ -18,7 +30,7 @@ export function validate<S extends z.ZodType>(schema: S, part: Part = 'body'): R
   return (req, res, next) => {
     const result = schema.safeParse(req[part]);
     if (!result.success) {
-      next(AppError.validation('Some fields need attention.', zodIssues(result.error)));
+      next(AppError.validation('Some fields need attention.', zodIssues(result.error)).because('invalid_fields'));
       return;
     }
     if (part === 'query') res.locals.query = result.data;

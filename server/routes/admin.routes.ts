@@ -35,7 +35,7 @@ export function adminRoutes(ctx: AppContext): RouteSpec[] {
       handle(async (req, res) => {
         const { userId } = res.locals.params as z.infer<typeof userIdParams>;
         const body = req.body as z.infer<typeof adminUpdateUserInputSchema>;
-        if (userId === req.user!.id) throw AppError.validation('Admins cannot change their own role or disable themselves.');
+        if (userId === req.user!.id) throw AppError.validation('Admins cannot change their own role or disable themselves.').because('admin_self_change');
         const user = await users.findOneBy({ id: userId });
         if (!user) throw AppError.notFound('Account');
         const patch: Partial<UserEntity> = {};

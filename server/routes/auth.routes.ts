@@ -30,7 +30,7 @@ export interface AuthLimits {
 
 export const defaultAuthLimits: AuthLimits = { signInPerWindow: 10, resetPerWindow: 5, windowMs: 15 * 60 * 1000 };
 
-function limiter(limit: number, windowMs: number, message: string) {
+function limiter(limit: number, windowMs: number, message: string, reason: string) {
   return rateLimit({
     windowMs,
     limit,
@@ -39,7 +39,7 @@ function limiter(limit: number, windowMs: number, message: string) {
     // Per address and account, so one attacker cannot lock everyone out and one account cannot be hammered.
     keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String((req.body as { email?: unknown })?.email ?? '').toLowerCase().trim()}`,
     handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'rate_limited', message } });
+      res.status(429).json({ error: { code: 'rate_limited', message, reason } });
     },
   });
 }
@@ -55,8 +55,8 @@ function logIn(req: Request, user: UserEntity): Promise<void> {
 
 export function authRoutes(ctx: AppContext, limits: AuthLimits = defaultAuthLimits): RouteSpec[] {
   const svc = authService(ctx);
-  const signInLimiter = limiter(limits.signInPerWindow, limits.windowMs, 'Too many sign-in attempts. Wait 15 minutes and try again, or reset your password.');
-  const resetLimiter = limiter(limits.resetPerWindow, limits.windowMs, 'Too many reset requests. Wait a while and try again.');
+  const signInLimiter = limiter(limits.signInPerWindow, limits.windowMs, 'Too many sign-in attempts. Wait 15 minutes and try again, or reset your password.', 'too_many_sign_ins');
+  const resetLimiter = limiter(limits.resetPerWindow, limits.windowMs, 'Too many reset requests. Wait a while and try again.', 'too_many_reset_requests');
 
   return [
     route('get', '/auth/session', access.public, (req, res) => {
@@ -80,8 +80,9 @@ export function authRoutes(ctx: AppContext, limits: AuthLimits = defaultAuthLimi
         if (err) return next(err);
         if (!user) {
           // One message for unknown e-mail and wrong password: no account enumeration.
-          const message = info?.message === 'disabled' ? 'This account has been disabled. Contact your programme lead or the site admin.' : 'That e-mail and password do not match an account.';
-          return next(new AppError('unauthenticated', message));
+          const disabled = info?.message === 'disabled';
+          const message = disabled ? 'This account has been disabled. Contact your programme lead or the site admin.' : 'That e-mail and password do not match an account.';
+          return next(new AppError('unauthenticated', message).because(disabled ? 'account_disabled' : 'bad_credentials'));
         }
         logIn(req, user)
           .then(() => res.json({ data: sessionInfo(req, user) }))

@@ -1,3 +1,5 @@
+import type { Request } from 'express';
+import { toLang, translator } from '@shared/i18n/translate';
 import type { AppContext } from '../context';
 import { access } from '../http/access';
 import { handle, route, type RouteSpec } from '../http/route';
@@ -10,6 +12,13 @@ function checkTable(table: string) {
   if (table !== 'data-dictionary' && !findExportTable(table)) throw AppError.notFound('Export table');
 }
 
+/** The reader's language: `?lang=en|es` when given (a student may want the other one), else the account's. */
+function readerT(req: Request) {
+  const asked = typeof req.query.lang === 'string' ? req.query.lang : undefined;
+  if (asked !== undefined && asked !== 'en' && asked !== 'es') throw AppError.validation('lang must be "en" or "es".');
+  return translator(toLang(asked ?? req.user?.language));
+}
+
 export function exportRoutes(ctx: AppContext): RouteSpec[] {
   const svc = exportService(ctx);
   const bundles = bundleService(ctx);
@@ -18,13 +27,13 @@ export function exportRoutes(ctx: AppContext): RouteSpec[] {
       'get',
       '/trials/:trialId/report.zip',
       access.reader('trial', 'trialId'),
-      handle(async (req, res) => bundles.streamTrialBundle(res, String(req.params.trialId))),
+      handle(async (req, res) => bundles.streamTrialBundle(res, String(req.params.trialId), readerT(req))),
     ),
     route(
       'get',
       '/cohorts/:cohortId/report.zip',
       access.cohortMember(),
-      handle(async (req, res) => bundles.streamCohortBundle(res, String(req.params.cohortId), req.user!.id)),
+      handle(async (req, res) => bundles.streamCohortBundle(res, String(req.params.cohortId), req.user!.id, readerT(req))),
     ),
     route(
       'get',
@@ -38,7 +47,7 @@ export function exportRoutes(ctx: AppContext): RouteSpec[] {
         const file = `seepwise-trial-${trialId.slice(0, 8)}-${table}.csv`;
         if (table === 'data-dictionary') {
           res.setHeader('Content-Disposition', `attachment; filename="${file}"`);
-          res.type('text/csv; charset=utf-8').send(svc.dictionaryCsv(scope));
+          res.type('text/csv; charset=utf-8').send(svc.dictionaryCsv(scope, readerT(req)));
           return;
         }
         await svc.streamTable(res, scope, table, file);
@@ -56,7 +65,7 @@ export function exportRoutes(ctx: AppContext): RouteSpec[] {
         const file = `seepwise-cohort-${cohortId.slice(0, 8)}-${table}.csv`;
         if (table === 'data-dictionary') {
           res.setHeader('Content-Disposition', `attachment; filename="${file}"`);
-          res.type('text/csv; charset=utf-8').send(svc.dictionaryCsv(scope));
+          res.type('text/csv; charset=utf-8').send(svc.dictionaryCsv(scope, readerT(req)));
           return;
         }
         await svc.streamTable(res, scope, table, file);

@@ -43,8 +43,8 @@ export function authService(ctx: AppContext) {
       assertPasswordAcceptable(input.password, input.email);
       if (await users.existsBy({ email: input.email })) {
         throw new AppError('conflict', 'An account with this e-mail already exists. Sign in, or reset your password.', [
-          { path: 'email', message: 'An account with this e-mail already exists.' },
-        ]);
+          { path: 'email', message: 'An account with this e-mail already exists.', reason: 'email_taken' },
+        ]).because('email_taken');
       }
       const user = users.create({
         email: input.email,
@@ -57,7 +57,7 @@ export function authService(ctx: AppContext) {
       try {
         await users.insert(user);
       } catch (err) {
-        if ((err as { code?: string }).code === '23505') throw new AppError('conflict', 'An account with this e-mail already exists.');
+        if ((err as { code?: string }).code === '23505') throw new AppError('conflict', 'An account with this e-mail already exists.').because('email_taken');
         throw err;
       }
       const saved = await users.findOneByOrFail({ id: user.id });
@@ -84,7 +84,7 @@ export function authService(ctx: AppContext) {
           [hashToken(token), ctx.now()],
         )) as { id: string; user_id: string }[];
         const row = rows[0];
-        if (!row) throw new AppError('validation_failed', 'This reset link has expired or was already used. Ask for a new one.');
+        if (!row) throw new AppError('validation_failed', 'This reset link has expired or was already used. Ask for a new one.').because('reset_link_invalid');
         const userRepo = tx.getRepository(UserEntity);
         const user = await userRepo.findOneByOrFail({ id: row.user_id });
         assertPasswordAcceptable(password, user.email);
@@ -96,7 +96,7 @@ export function authService(ctx: AppContext) {
 
     async verifyEmail(token: string): Promise<void> {
       const userId = await consumeToken(token, 'email_verify');
-      if (!userId) throw new AppError('validation_failed', 'This confirmation link has expired or was already used.');
+      if (!userId) throw new AppError('validation_failed', 'This confirmation link has expired or was already used.').because('confirm_link_invalid');
       await users.update({ id: userId, emailVerifiedAt: IsNull() }, { emailVerifiedAt: new Date() });
     },
 
@@ -107,7 +107,7 @@ export function authService(ctx: AppContext) {
 
     async changePassword(user: UserEntity, current: string, next: string): Promise<void> {
       if (!(await verifyPassword(user.passwordHash, current))) {
-        throw AppError.validation('The current password is not right.', [{ path: 'currentPassword', message: 'The current password is not right.' }]);
+        throw AppError.validation('The current password is not right.', [{ path: 'currentPassword', message: 'The current password is not right.', reason: 'current_password_wrong' }]).because('current_password_wrong');
       }
       assertPasswordAcceptable(next, user.email);
       await users.update(user.id, { passwordHash: await hashPassword(next), sessionsValidAfter: new Date() });

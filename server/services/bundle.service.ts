@@ -6,7 +6,9 @@ import { cohortCharts } from '@shared/charts/cohort-charts';
 import { trialCharts } from '@shared/charts/trial-charts';
 import { cohortReportMarkdown } from '@shared/report/cohort-report';
 import { trialReportMarkdown } from '@shared/report/trial-report';
-import { cropLabels, type Crop } from '@shared/schemas/trials';
+import { cropLabel } from '@shared/charts/cohort-charts';
+import type { Translate } from '@shared/i18n/translate';
+import type { Crop } from '@shared/schemas/trials';
 import type { AppContext } from '../context';
 import { renderChart } from '../lib/render-chart';
 import { analysisService } from './analysis.service';
@@ -50,7 +52,7 @@ export function bundleService(ctx: AppContext) {
   }
 
   /** Adds every table of the scope to the archive, each streamed from its own COPY in turn. */
-  async function addTables(zip: archiver.Archiver, client: PoolClient, scope: ExportScope, dir: string) {
+  async function addTables(zip: archiver.Archiver, client: PoolClient, scope: ExportScope, dir: string, t: Translate) {
     for (const table of exportTables) {
       const sql = exportSelect(table, scope, (v) => client.escapeLiteral(v));
       const stream = client.query(copyTo(`COPY (${sql}) TO STDOUT WITH (FORMAT csv, HEADER true)`));
@@ -62,11 +64,12 @@ export function bundleService(ctx: AppContext) {
       // COPY streams on one connection must run one after another.
       await done;
     }
-    zip.append(BOM + Papa.unparse(dictionaryRows(scope), { newline: '\r\n' }), { name: `${dir}/data-dictionary.csv` });
+    const dictionary = dictionaryRows(scope, t, { withTrialsTable: scope.kind === 'cohort' });
+    zip.append(BOM + Papa.unparse(dictionary, { newline: '\r\n', escapeFormulae: true }), { name: `${dir}/data-dictionary.csv` });
   }
 
   return {
-    async streamTrialBundle(res: Response, trialId: string) {
+    async streamTrialBundle(res: Response, trialId: string, t: Translate) {
       const [trial] = (await ctx.ds.query(`SELECT title, crop, crop_name, variety, planting_date, end_date, design, treatments, question, randomisation_seed FROM trials WHERE id = $1`, [
         trialId,
       ])) as {
@@ -82,8 +85,8 @@ export function bundleService(ctx: AppContext) {
         randomisation_seed: string | null;
       }[];
       const a = await analysis.forTrial(trialId);
-      const charts = trialCharts(a, trial!.treatments, { units: 'metric', width: 640 });
-      const rendered = await Promise.all(charts.map(async (c) => ({ ...c, ...(await renderChart(c.spec)) })));
+      const charts = trialCharts(a, trial!.treatments, { units: 'metric', width: 640, t });
+      const rendered = await Promise.all(charts.map(async (c) => ({ ...c, ...(await renderChart(c.spec, { lang: t.lang })) })));
       const files = [
         ...exportTables.map((t) => `data/${t.name}.csv`),
         'data/data-dictionary.csv',
@@ -91,7 +94,7 @@ export function bundleService(ctx: AppContext) {
       ];
       const markdown = trialReportMarkdown({
         title: trial!.title,
-        crop: trial!.crop === 'other' ? trial!.crop_name : cropLabels[trial!.crop],
+        crop: trial!.crop === 'other' ? trial!.crop_name : cropLabel(trial!.crop, t),
         variety: trial!.variety,
         plantingDate: trial!.planting_date,
         endDate: trial!.end_date,
@@ -102,6 +105,7 @@ export function bundleService(ctx: AppContext) {
         analysis: a,
         generatedOn: ctx.now().toISOString().slice(0, 10),
         files,
+        t,
       });
 
       const { zip, finished } = startZip(res, `seepwise-trial-${trialId.slice(0, 8)}-report.zip`);
@@ -110,17 +114,17 @@ export function bundleService(ctx: AppContext) {
         zip.append(c.svg, { name: `charts/${c.id}.svg` });
         zip.append(c.png, { name: `charts/${c.id}.png` });
       }
-      await withClient((client) => addTables(zip, client, { kind: 'trial', trialId }, 'data'));
+      await withClient((client) => addTables(zip, client, { kind: 'trial', trialId }, 'data', t));
       await zip.finalize();
       await finished;
     },
 
     /** The students' bundle: the cohort's pseudonymised CSVs, its charts, and the methods text with licence. */
-    async streamCohortBundle(res: Response, cohortId: string, userId: string) {
+    async streamCohortBundle(res: Response, cohortId: string, userId: string, t: Translate) {
       const [cohort] = (await ctx.ds.query('SELECT name, licence FROM cohorts WHERE id = $1', [cohortId])) as { name: string; licence: string }[];
       const results = await cohortResults.results(cohortId, userId, { method: 'DL', confidence: 0.95, includeSinglePairs: false, excludeFlagged: false });
-      const charts = cohortCharts(results, { units: 'metric', width: 640 });
-      const rendered = await Promise.all(charts.map(async (c) => ({ ...c, ...(await renderChart(c.spec)) })));
+      const charts = cohortCharts(results, { units: 'metric', width: 640, t });
+      const rendered = await Promise.all(charts.map(async (c) => ({ ...c, ...(await renderChart(c.spec, { lang: t.lang })) })));
       const files = [
         ...exportTables.map((t) => `data/${t.name}.csv`),
         'data/data-dictionary.csv',
@@ -148,7 +152,7 @@ export function bundleService(ctx: AppContext) {
         zip.append(c.svg, { name: `charts/${c.id}.svg` });
         zip.append(c.png, { name: `charts/${c.id}.png` });
       }
-      await withClient((client) => addTables(zip, client, { kind: 'cohort', cohortId }, 'data'));
+      await withClient((client) => addTables(zip, client, { kind: 'cohort', cohortId }, 'data', t));
       await zip.finalize();
       await finished;
     },

@@ -78,12 +78,12 @@ export function cohortsService(ctx: AppContext) {
       closed_at: Date | null;
     }[];
     if (!cohort) throw AppError.notFound('Cohort');
-    if (cohort.closed_at) throw new AppError('conflict', 'This cohort is closed to new members. Ask its lead to reopen it.');
-    if (cohort.lead_id === userId) throw new AppError('conflict', 'You lead this cohort already.');
+    if (cohort.closed_at) throw new AppError('conflict', 'This cohort is closed to new members. Ask its lead to reopen it.').because('cohort_closed');
+    if (cohort.lead_id === userId) throw new AppError('conflict', 'You lead this cohort already.').because('cohort_already_lead');
     const existing = await tx.getRepository(CohortMembershipEntity).findOneBy({ cohortId, userId });
-    if (existing) throw new AppError('conflict', 'You are already a member of this cohort.');
+    if (existing) throw new AppError('conflict', 'You are already a member of this cohort.').because('cohort_already_member');
     const [{ n }] = (await tx.query(`SELECT count(*)::int AS n FROM cohort_memberships WHERE cohort_id = $1`, [cohortId])) as [{ n: number }];
-    if (cohort.capacity !== null && n >= cohort.capacity) throw new AppError('conflict', 'This cohort is full. Ask its lead to raise the member limit.');
+    if (cohort.capacity !== null && n >= cohort.capacity) throw new AppError('conflict', 'This cohort is full. Ask its lead to raise the member limit.').because('cohort_full');
     for (let attempt = 0; attempt < 20; attempt++) {
       const pseudonym = newPseudonym(role);
       const clash = await tx.getRepository(CohortMembershipEntity).existsBy({ cohortId, pseudonym });
@@ -141,16 +141,16 @@ export function cohortsService(ctx: AppContext) {
     async joinByCode(user: UserEntity, code: string, role: MembershipRole): Promise<CohortSummary> {
       const cohort = await cohorts.findOneBy({ joinCode: code });
       // Same message for a mistyped code and a rotated one: the code itself is the secret.
-      if (!cohort) throw AppError.validation('No cohort uses that join code. Check it with your lead; codes can be changed.', [{ path: 'code', message: 'No cohort uses that join code.' }]);
+      if (!cohort) throw AppError.validation('No cohort uses that join code. Check it with your lead; codes can be changed.', [{ path: 'code', message: 'No cohort uses that join code.', reason: 'join_code_unknown' }]).because('join_code_unknown');
       await ctx.ds.transaction((tx) => addMember(tx, cohort.id, user.id, role));
       return this.get(cohort.id, user.id);
     },
 
     async invite(cohortId: string, inviter: UserEntity, email: string, role: MembershipRole): Promise<Invitation> {
       const cohort = await cohorts.findOneByOrFail({ id: cohortId });
-      if (cohort.closedAt) throw new AppError('conflict', 'This cohort is closed: reopen it before inviting anyone.');
+      if (cohort.closedAt) throw new AppError('conflict', 'This cohort is closed: reopen it before inviting anyone.').because('invite_cohort_closed');
       const [{ n }] = (await ctx.ds.query(`SELECT count(*)::int AS n FROM cohort_memberships WHERE cohort_id = $1`, [cohortId])) as [{ n: number }];
-      if (cohort.capacity !== null && n >= cohort.capacity) throw new AppError('conflict', 'This cohort is full: raise the member limit before inviting anyone.');
+      if (cohort.capacity !== null && n >= cohort.capacity) throw new AppError('conflict', 'This cohort is full: raise the member limit before inviting anyone.').because('invite_cohort_full');
       const token = randomToken();
       const inv = await ctx.ds.getRepository(CohortInvitationEntity).save({
         cohortId,
@@ -193,9 +193,9 @@ export function cohortsService(ctx: AppContext) {
         }[];
         const inv = rows[0];
         if (!inv) throw AppError.notFound('Invitation');
-        if (inv.accepted_at) throw new AppError('conflict', 'This invitation has already been used.');
-        if (inv.expires_at <= ctx.now()) throw new AppError('conflict', 'This invitation has expired. Ask the cohort lead for a new one.');
-        if (inv.email !== user.email) throw AppError.forbidden(`This invitation was sent to ${inv.email}. Sign in with that address to accept it.`);
+        if (inv.accepted_at) throw new AppError('conflict', 'This invitation has already been used.').because('invitation_used');
+        if (inv.expires_at <= ctx.now()) throw new AppError('conflict', 'This invitation has expired. Ask the cohort lead for a new one.').because('invitation_expired');
+        if (inv.email !== user.email) throw AppError.forbidden(`This invitation was sent to ${inv.email}. Sign in with that address to accept it.`).because('invitation_other_email', { email: inv.email });
         await addMember(tx, inv.cohort_id, user.id, inv.role);
         await tx.query(`UPDATE cohort_invitations SET accepted_at = now() WHERE id = $1`, [inv.id]);
         return inv.cohort_id;
@@ -218,7 +218,7 @@ export function cohortsService(ctx: AppContext) {
 
     async leave(cohortId: string, userId: string): Promise<void> {
       const res = await ctx.ds.getRepository(CohortMembershipEntity).delete({ cohortId, userId });
-      if (!res.affected) throw new AppError('conflict', 'You are not a member of this cohort (a lead cannot leave their own cohort).');
+      if (!res.affected) throw new AppError('conflict', 'You are not a member of this cohort (a lead cannot leave their own cohort).').because('cohort_not_member');
     },
   };
 }

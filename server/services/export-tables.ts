@@ -4,20 +4,27 @@
  * ISO 8601 dates, SI units in the column names.
  */
 
+import type enExport from '@shared/locales/en/export.json';
+import { enT, type Translate } from '@shared/i18n/translate';
+
 export type ExportScope = { kind: 'trial'; trialId: string } | { kind: 'cohort'; cohortId: string };
 
+/** Stable column names: the same in every language (their labels and descriptions are in shared/locales/<lang>/export.json). */
+export type ExportColumnName = keyof typeof enExport.columns;
+export type ExportTableName = Exclude<keyof typeof enExport.tables, 'trials'>;
+
 export interface ExportColumn {
-  name: string;
+  name: ExportColumnName;
   type: 'text' | 'number' | 'integer' | 'boolean' | 'date' | 'datetime';
+  /** Unit symbol, or a word translated in the dictionary ('plants', 'pots', 'fruits', 'seeUnitColumn'). */
   unit: string;
-  description: string;
   /** SQL expression; text columns are neutralised against spreadsheet formulas. */
   sql: string;
 }
 
 export interface ExportTable {
-  name: string;
-  description: string;
+  /** File name without .csv; its description is `export.tables.<name>` in shared/locales. */
+  name: ExportTableName;
   columns: (scope: ExportScope) => ExportColumn[];
   /** FROM ... JOIN ... with `t` = trials; WHERE is added for the scope. */
   from: string;
@@ -34,116 +41,116 @@ const iso = (expr: string) => `to_char(${expr} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T
 /** Who the row belongs to: the trial id for its owner, stable pseudonymous codes in cohort exports. */
 function idColumns(scope: ExportScope): ExportColumn[] {
   if (scope.kind === 'trial') {
-    return [{ name: 'trial_id', type: 'text', unit: '', description: 'Identifier of the trial.', sql: 't.id::text' }];
+    return [{ name: 'trial_id', type: 'text', unit: '', sql: 't.id::text' }];
   }
   return [
     {
       name: 'trial_code',
       type: 'text',
       unit: '',
-      description: 'Pseudonymous code of the trial, stable within this cohort (not the database id).',
+     
       sql: `'T' || upper(substr(md5(s.cohort_id::text || t.id::text), 1, 8))`,
     },
-    { name: 'member', type: 'text', unit: '', description: "The contributing member's pseudonym in this cohort (never the real name).", sql: safeText('m.pseudonym') },
+    { name: 'member', type: 'text', unit: '', sql: safeText('m.pseudonym') },
   ];
 }
 
 const plotCols: ExportColumn[] = [
-  { name: 'plot', type: 'text', unit: '', description: 'Plot label, unique within the trial.', sql: safeText('p.label') },
-  { name: 'pair', type: 'text', unit: '', description: 'Pair (paired design) or block the plot belongs to.', sql: safeText('p.block_key') },
-  { name: 'treatment', type: 'text', unit: '', description: 'olla (buried clay pots), surface (surface watering) or another named treatment.', sql: safeText("coalesce(p.treatment, '')") },
+  { name: 'plot', type: 'text', unit: '', sql: safeText('p.label') },
+  { name: 'pair', type: 'text', unit: '', sql: safeText('p.block_key') },
+  { name: 'treatment', type: 'text', unit: '', sql: safeText("coalesce(p.treatment, '')") },
 ];
 
 export const exportTables: ExportTable[] = [
   {
     name: 'plots',
-    description: 'One row per plot.',
+   
     from: 'plots p JOIN trials t ON t.id = p.trial_id',
     orderBy: 't.id, p.block_key, p.label',
     columns: (scope) => [
       ...idColumns(scope),
       ...plotCols,
-      { name: 'area_m2', type: 'number', unit: 'm²', description: 'Plot area.', sql: 'p.area_m2' },
-      { name: 'setting', type: 'text', unit: '', description: 'in_ground, raised_bed or container.', sql: 'p.setting' },
-      { name: 'mulch', type: 'boolean', unit: '', description: 'Whether the plot was mulched.', sql: 'p.mulch' },
-      { name: 'lid', type: 'boolean', unit: '', description: 'Whether the pots had lids.', sql: 'p.lid' },
-      { name: 'plant_count', type: 'integer', unit: 'plants', description: 'Number of plants in the plot.', sql: 'p.plant_count' },
-      { name: 'crop', type: 'text', unit: '', description: 'Crop of the trial (FAO-56 crop name where known).', sql: `CASE WHEN t.crop = 'other' THEN ${safeText('t.crop_name')} ELSE t.crop END` },
-      { name: 'planting_date', type: 'date', unit: '', description: 'Planting date of the trial (ISO 8601).', sql: "to_char(t.planting_date, 'YYYY-MM-DD')" },
-      { name: 'pot_count', type: 'integer', unit: 'pots', description: 'Pots placed in the plot.', sql: '(SELECT count(*) FROM pots o WHERE o.plot_id = p.id)' },
-      { name: 'pot_capacity_l', type: 'number', unit: 'L', description: 'Total capacity of the pots in the plot.', sql: '(SELECT coalesce(sum(o.capacity_l), 0) FROM pots o WHERE o.plot_id = p.id)' },
+      { name: 'area_m2', type: 'number', unit: 'm²', sql: 'p.area_m2' },
+      { name: 'setting', type: 'text', unit: '', sql: 'p.setting' },
+      { name: 'mulch', type: 'boolean', unit: '', sql: 'p.mulch' },
+      { name: 'lid', type: 'boolean', unit: '', sql: 'p.lid' },
+      { name: 'plant_count', type: 'integer', unit: 'plants', sql: 'p.plant_count' },
+      { name: 'crop', type: 'text', unit: '', sql: `CASE WHEN t.crop = 'other' THEN ${safeText('t.crop_name')} ELSE t.crop END` },
+      { name: 'planting_date', type: 'date', unit: '', sql: "to_char(t.planting_date, 'YYYY-MM-DD')" },
+      { name: 'pot_count', type: 'integer', unit: 'pots', sql: '(SELECT count(*) FROM pots o WHERE o.plot_id = p.id)' },
+      { name: 'pot_capacity_l', type: 'number', unit: 'L', sql: '(SELECT coalesce(sum(o.capacity_l), 0) FROM pots o WHERE o.plot_id = p.id)' },
     ],
   },
   {
     name: 'water-events',
-    description: 'One row per olla refill or surface watering.',
+   
     from: 'water_events x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id',
     orderBy: 'x.occurred_at, p.label, x.id',
     columns: (scope) => [
       ...idColumns(scope),
       ...plotCols,
-      { name: 'occurred_at', type: 'datetime', unit: 'UTC', description: 'When the water was given (ISO 8601, UTC).', sql: iso('x.occurred_at') },
-      { name: 'kind', type: 'text', unit: '', description: 'olla_refill or surface.', sql: 'x.kind' },
-      { name: 'volume_l', type: 'number', unit: 'L', description: 'Volume of water given.', sql: 'x.volume_l' },
-      { name: 'source', type: 'text', unit: '', description: 'mains, rainwater, greywater, well or other.', sql: 'x.source' },
-      { name: 'fertiliser', type: 'boolean', unit: '', description: 'Fertiliser or compost tea added.', sql: 'x.fertiliser' },
-      ...(scope.kind === 'trial' ? [{ name: 'notes', type: 'text' as const, unit: '', description: 'Free-text note (trial exports only).', sql: safeText('x.notes') }] : []),
+      { name: 'occurred_at', type: 'datetime', unit: 'UTC', sql: iso('x.occurred_at') },
+      { name: 'kind', type: 'text', unit: '', sql: 'x.kind' },
+      { name: 'volume_l', type: 'number', unit: 'L', sql: 'x.volume_l' },
+      { name: 'source', type: 'text', unit: '', sql: 'x.source' },
+      { name: 'fertiliser', type: 'boolean', unit: '', sql: 'x.fertiliser' },
+      ...(scope.kind === 'trial' ? [{ name: 'notes' as const, type: 'text' as const, unit: '', sql: safeText('x.notes') }] : []),
     ],
   },
   {
     name: 'moisture-readings',
-    description: 'One row per soil moisture reading; each method on its own scale, never mixed.',
+   
     from: 'moisture_readings x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id',
     orderBy: 'x.taken_at, p.label, x.id',
     columns: (scope) => [
       ...idColumns(scope),
       ...plotCols,
-      { name: 'taken_at', type: 'datetime', unit: 'UTC', description: 'When the reading was taken (ISO 8601, UTC).', sql: iso('x.taken_at') },
-      { name: 'method', type: 'text', unit: '', description: 'vwc (volumetric water content), tensiometer or probe_index.', sql: 'x.method' },
-      { name: 'depth_cm', type: 'number', unit: 'cm', description: 'Depth of the reading.', sql: 'x.depth_cm' },
-      { name: 'value', type: 'number', unit: 'see unit column', description: 'The reading, on the scale of its method.', sql: 'x.value' },
+      { name: 'taken_at', type: 'datetime', unit: 'UTC', sql: iso('x.taken_at') },
+      { name: 'method', type: 'text', unit: '', sql: 'x.method' },
+      { name: 'depth_cm', type: 'number', unit: 'cm', sql: 'x.depth_cm' },
+      { name: 'value', type: 'number', unit: 'seeUnitColumn', sql: 'x.value' },
       {
         name: 'unit',
         type: 'text',
         unit: '',
-        description: '% for vwc, kPa for tensiometer, index (1–10) for probe_index.',
+       
         sql: "CASE x.method WHEN 'vwc' THEN '%' WHEN 'tensiometer' THEN 'kPa' ELSE 'index' END",
       },
     ],
   },
   {
     name: 'harvests',
-    description: 'One row per pick.',
+   
     from: 'harvests x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id',
     orderBy: 'x.harvested_on, p.label, x.id',
     columns: (scope) => [
       ...idColumns(scope),
       ...plotCols,
-      { name: 'harvested_on', type: 'date', unit: '', description: 'Day of the pick (ISO 8601).', sql: "to_char(x.harvested_on, 'YYYY-MM-DD')" },
-      { name: 'fresh_kg', type: 'number', unit: 'kg', description: 'Fresh mass picked.', sql: 'x.fresh_kg' },
-      { name: 'marketable_kg', type: 'number', unit: 'kg', description: 'Marketable part of the fresh mass (empty when not recorded).', sql: 'x.marketable_kg' },
-      { name: 'count', type: 'integer', unit: 'fruits', description: 'Number of fruits (empty when not counted).', sql: 'x.count' },
-      ...(scope.kind === 'trial' ? [{ name: 'notes', type: 'text' as const, unit: '', description: 'Free-text note (trial exports only).', sql: safeText('x.notes') }] : []),
+      { name: 'harvested_on', type: 'date', unit: '', sql: "to_char(x.harvested_on, 'YYYY-MM-DD')" },
+      { name: 'fresh_kg', type: 'number', unit: 'kg', sql: 'x.fresh_kg' },
+      { name: 'marketable_kg', type: 'number', unit: 'kg', sql: 'x.marketable_kg' },
+      { name: 'count', type: 'integer', unit: 'fruits', sql: 'x.count' },
+      ...(scope.kind === 'trial' ? [{ name: 'notes' as const, type: 'text' as const, unit: '', sql: safeText('x.notes') }] : []),
     ],
   },
   {
     name: 'weather-days',
-    description: "One row per day of the garden's weather during the trial.",
+   
     from: "weather_days x JOIN trials t ON t.garden_id = x.garden_id AND x.day >= t.planting_date AND x.day <= coalesce(t.end_date, 'infinity'::date)",
     orderBy: 't.id, x.day, x.forecast',
     columns: (scope) => [
       ...idColumns(scope),
-      { name: 'day', type: 'date', unit: '', description: 'Calendar day (ISO 8601).', sql: "to_char(x.day, 'YYYY-MM-DD')" },
-      { name: 'forecast', type: 'boolean', unit: '', description: 'A forecast rather than an observation.', sql: 'x.forecast' },
-      { name: 't_min_c', type: 'number', unit: '°C', description: 'Minimum air temperature.', sql: 'x.t_min_c' },
-      { name: 't_max_c', type: 'number', unit: '°C', description: 'Maximum air temperature.', sql: 'x.t_max_c' },
-      { name: 'rain_mm', type: 'number', unit: 'mm', description: 'Rain.', sql: 'x.rain_mm' },
-      { name: 'rh_min_pct', type: 'number', unit: '%', description: 'Minimum relative humidity.', sql: 'x.rh_min_pct' },
-      { name: 'rh_max_pct', type: 'number', unit: '%', description: 'Maximum relative humidity.', sql: 'x.rh_max_pct' },
-      { name: 'wind_speed_ms', type: 'number', unit: 'm/s', description: 'Mean wind speed at the measuring height.', sql: 'x.wind_speed_ms' },
-      { name: 'wind_height_m', type: 'number', unit: 'm', description: 'Height of the wind measurement.', sql: 'x.wind_height_m' },
-      { name: 'sunshine_hours', type: 'number', unit: 'h', description: 'Hours of bright sunshine.', sql: 'x.sunshine_hours' },
-      { name: 'solar_radiation_mj', type: 'number', unit: 'MJ/m²/day', description: 'Solar radiation.', sql: 'x.solar_radiation_mj' },
+      { name: 'day', type: 'date', unit: '', sql: "to_char(x.day, 'YYYY-MM-DD')" },
+      { name: 'forecast', type: 'boolean', unit: '', sql: 'x.forecast' },
+      { name: 't_min_c', type: 'number', unit: '°C', sql: 'x.t_min_c' },
+      { name: 't_max_c', type: 'number', unit: '°C', sql: 'x.t_max_c' },
+      { name: 'rain_mm', type: 'number', unit: 'mm', sql: 'x.rain_mm' },
+      { name: 'rh_min_pct', type: 'number', unit: '%', sql: 'x.rh_min_pct' },
+      { name: 'rh_max_pct', type: 'number', unit: '%', sql: 'x.rh_max_pct' },
+      { name: 'wind_speed_ms', type: 'number', unit: 'm/s', sql: 'x.wind_speed_ms' },
+      { name: 'wind_height_m', type: 'number', unit: 'm', sql: 'x.wind_height_m' },
+      { name: 'sunshine_hours', type: 'number', unit: 'h', sql: 'x.sunshine_hours' },
+      { name: 'solar_radiation_mj', type: 'number', unit: 'MJ/m²/day', sql: 'x.solar_radiation_mj' },
     ],
   },
 ];
@@ -168,12 +175,43 @@ export function exportSelect(table: ExportTable, scope: ExportScope, literal: (v
            ORDER BY ${table.orderBy}`;
 }
 
-/** The data dictionary rows for a scope: file, column, type, unit, description. */
-export function dictionaryRows(scope: ExportScope): string[][] {
-  const rows: string[][] = [['file', 'column', 'type', 'unit', 'description']];
-  for (const t of exportTables) {
-    rows.push([`${t.name}.csv`, '', '', '', t.description]);
-    for (const c of t.columns(scope)) rows.push([`${t.name}.csv`, c.name, c.type, c.unit, c.description]);
+/** The extra table of a cohort report bundle (data/trials.csv), built in JS from the cohort results. */
+export const cohortTrialsColumns: { name: ExportColumnName; type: ExportColumn['type']; unit: string }[] = [
+  { name: 'member', type: 'text', unit: '' },
+  { name: 'crop', type: 'text', unit: '' },
+  { name: 'region', type: 'text', unit: '' },
+  { name: 'soil_texture', type: 'text', unit: '' },
+  { name: 'pairs', type: 'integer', unit: '' },
+  { name: 'completeness_pct', type: 'integer', unit: '%' },
+  { name: 'water_log_ratio', type: 'number', unit: '' },
+  { name: 'water_log_ratio_variance', type: 'number', unit: '' },
+  { name: 'flags', type: 'text', unit: '' },
+  { name: 'excluded', type: 'boolean', unit: '' },
+];
+
+const unitWords = new Set(['plants', 'pots', 'fruits', 'seeUnitColumn']);
+
+/**
+ * The data dictionary in the reader's language: file, column, type, unit, label, description.
+ *
+ * Column names (and this file's own header) are stable English identifiers in every language, so
+ * a script written against one export reads every other; the `label` column gives a readable name
+ * and `description` the meaning, both translated. The first row says so, and that numbers keep dot
+ * decimals whatever the language (DEVELOPERS.md, "Exports in two languages").
+ */
+export function dictionaryRows(scope: ExportScope, t: Translate = enT, options: { withTrialsTable?: boolean } = {}): string[][] {
+  const rows: string[][] = [['file', 'column', 'type', 'unit', 'label', 'description']];
+  rows.push(['', '', '', '', '', t('export.about')]);
+  const unit = (u: string) => (unitWords.has(u) ? t(`export.units.${u as 'plants'}`) : u);
+  const column = (file: string, c: { name: ExportColumnName; type: string; unit: string }) => [file, c.name, c.type, unit(c.unit), t(`export.columns.${c.name}.label`), t(`export.columns.${c.name}.description`)];
+  for (const table of exportTables) {
+    const file = `${table.name}.csv`;
+    rows.push([file, '', '', '', '', t(`export.tables.${table.name}`)]);
+    for (const c of table.columns(scope)) rows.push(column(file, c));
+  }
+  if (options.withTrialsTable) {
+    rows.push(['trials.csv', '', '', '', '', t('export.tables.trials')]);
+    for (const c of cohortTrialsColumns) rows.push(column('trials.csv', c));
   }
   return rows;
 }

@@ -3,6 +3,7 @@ import Papa from 'papaparse';
 import type { PoolClient } from 'pg';
 import { to as copyTo } from 'pg-copy-streams';
 import { pipeline } from 'node:stream/promises';
+import type { Translate } from '@shared/i18n/translate';
 import type { AppContext } from '../context';
 import { AppError } from '../lib/app-error';
 import { dictionaryRows, exportSelect, findExportTable, type ExportScope } from './export-tables';
@@ -43,8 +44,9 @@ export function exportService(ctx: AppContext) {
       });
     },
 
-    dictionaryCsv(scope: ExportScope): string {
-      return BOM + Papa.unparse(dictionaryRows(scope), { newline: '\r\n' });
+    /** The data dictionary in the reader's language (column names stay the same in every language). */
+    dictionaryCsv(scope: ExportScope, t: Translate): string {
+      return BOM + Papa.unparse(dictionaryRows(scope, t), { newline: '\r\n', escapeFormulae: true });
     },
   };
 }

@@ -189,7 +189,13 @@ export function importService(ctx: AppContext) {
           const label = String(Object.hasOwn(raw, 'plotLabel') ? (raw.plotLabel ?? '') : '');
           const plotId = plotByLabel.get(label.trim().toLowerCase());
           if (!plotId) {
-            errors.push({ line, column: 'plot', reason: `No plot "${label}" in this trial (plots: ${plots.map((p) => p.label).join(', ')}).` });
+            errors.push({
+              line,
+              column: 'plot',
+              reason: `No plot "${label}" in this trial (plots: ${plots.map((p) => p.label).join(', ')}).`,
+              code: 'unknownPlot',
+              params: { plot: label, plots: plots.map((p) => p.label).join(', ') },
+            });
             return;
           }
           input.plotId = plotId;
@@ -216,6 +222,8 @@ export function importService(ctx: AppContext) {
             line,
             column: when,
             reason: `${day} is outside this trial (planted ${trial.planting_date}${trial.end_date ? `, ends ${trial.end_date}` : ''}).`,
+            code: 'outsideTrial',
+            params: { day, planted: trial.planting_date, ends: trial.end_date ?? '' },
           });
           return;
         }

@@ -150,8 +150,8 @@ export async function unsubscribe(ctx: Pick<NotificationContext, 'ds' | 'env'>, 
   const read = readUnsubscribeToken(ctx.env.SESSION_SECRET, token);
   if (!read) {
     throw AppError.validation('This unsubscribe link is not valid. Copy the whole link from the e-mail, or change your reminders under Account after signing in.', [
-      { path: 'token', message: 'This unsubscribe link is not valid.' },
-    ]);
+      { path: 'token', message: 'This unsubscribe link is not valid.', reason: 'unsubscribe_link_invalid' },
+    ]).because('unsubscribe_link_invalid');
   }
   const exists = (await ctx.ds.query(`SELECT 1 FROM users WHERE id = $1`, [read.userId])) as unknown[];
   if (exists.length) await updatePreferences(ctx.ds, read.userId, { [preferenceForKind[read.kind]]: false });

@@ -5,7 +5,8 @@
 import { KG_PER_POUND, M2_PER_SQUARE_FOOT, MM_PER_INCH, type UnitSystem } from '../units';
 import type { Comparison, PairedMetric } from './trial-analysis';
 
-export type Lang = 'en' | 'es';
+export type { Lang } from '../i18n/translate';
+import type { Lang } from '../i18n/translate';
 
 interface Fmt {
   lang: Lang;
@@ -19,8 +20,8 @@ function num(v: number, digits: number, lang: Lang): string {
 /** "p = 0.034" or "p < 0.001". */
 function pText(p: number, lang: Lang): string {
   if (!Number.isFinite(p)) return lang === 'es' ? 'p no calculable' : 'p not computable';
-  if (p < 0.001) return 'p < 0.001';
-  return `p = ${num(p, 3, 'en')}`;
+  if (p < 0.001) return `p < ${num(0.001, 3, lang)}`;
+  return `p = ${num(p, 3, lang)}`;
 }
 
 /** Water depth for display: mm or inches. */
@@ -127,7 +128,7 @@ export function describeComparison(c: Comparison, f: Fmt): string[] {
     }
     if (n <= 6 && c.metrics.waterMm.result.wilcoxon.exact) {
       // The exact two-sided signed-rank p-value cannot go below 2 / 2^n (all differences one way).
-      const floor = num(2 / 2 ** n, 3, 'en');
+      const floor = num(2 / 2 ** n, 3, f.lang);
       out.push(
         f.lang === 'es'
           ? `Con ${n} pares, la prueba de Wilcoxon no puede dar un p menor que ${floor} aunque todos los pares vayan en el mismo sentido.`

@@ -3,6 +3,8 @@
  * SQL (per-plot totals, per-plot daily litres, weather days, daily moisture means). Pure: no
  * I/O, no clock; the same function can run in the browser.
  */
+import enAnalysis from '../locales/en/analysis.json';
+import { enT } from '../i18n/translate';
 import { CROP_COEFFICIENTS, etc, kcForDay, type CropCoefficients, type CropId } from '../agronomy/crop-coefficients';
 import { et0ForDay, type Et0Method } from '../agronomy/et0';
 import { describePairs, pairedComparison, type PairDescription, type PairedComparison } from './paired';
@@ -60,7 +62,15 @@ export interface TrialAnalysisInput {
 
 export type PairedMetric =
   | { kind: 'test'; n: number; result: PairedComparison }
-  | { kind: 'descriptive'; n: number; description: PairDescription | null; reason: string };
+  | { kind: 'descriptive'; n: number; description: PairDescription | null; reason: string; reasonKey: DescriptiveReason };
+
+/** Why a metric has no test: `analysis.reasons.<key>` in shared/locales (`reason` is its English text). */
+export type DescriptiveReason = keyof typeof enAnalysis.reasons;
+/** A warning as a key of `analysis.warnings` in shared/locales with its values, so any language can show it. */
+export interface AnalysisNotice {
+  key: keyof typeof enAnalysis.warnings;
+  params?: Record<string, string>;
+}
 
 export interface PairRow {
   blockKey: string;
@@ -135,7 +145,9 @@ export interface TrialAnalysis {
     series: { day: string; treatment: string; method: string; value: number }[];
     stress: { treatment: string; method: string; threshold: number; daysBelow: number; daysMeasured: number }[];
   };
+  /** The warnings in English (kept for older readers); `notices` carries the same ones as translation keys. */
   warnings: string[];
+  notices: AnalysisNotice[];
 }
 
 const DAY_MS = 86_400_000;
@@ -169,13 +181,14 @@ function pairedMetric(t: (number | null)[], c: (number | null)[], confidence: nu
       cc.push(w);
     }
   });
-  if (tt.length === 0) return { kind: 'descriptive', n: 0, description: null, reason: 'No complete pair has this measurement yet.' };
+  if (tt.length === 0) return { kind: 'descriptive', n: 0, description: null, reason: enT('analysis.reasons.noCompletePair'), reasonKey: 'noCompletePair' };
   if (tt.length === 1) {
     return {
       kind: 'descriptive',
       n: 1,
       description: describePairs(tt, cc),
-      reason: 'With a single pair there is no variation between replicates, so no test across pairs is possible. Days are not replicates.',
+      reason: enT('analysis.reasons.singlePair'),
+      reasonKey: 'singlePair',
     };
   }
   return { kind: 'test', n: tt.length, result: pairedComparison(tt, cc, { confidence }) };
@@ -195,14 +208,19 @@ function cropKc(crop: string, overrides: TrialAnalysisInput['trial']['kcOverride
 export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   const confidence = input.confidence ?? 0.95;
   const warnings: string[] = [];
+  const notices: AnalysisNotice[] = [];
+  const warn = (key: AnalysisNotice['key'], params?: Record<string, string>) => {
+    notices.push(params ? { key, params } : { key });
+    warnings.push(enT(`analysis.warnings.${key}`, params));
+  };
   const plots: PlotSummary[] = input.plots.map((p) => ({
     ...p,
     depthMm: depthMm(p.waterL, p.areaM2),
     harvestKgPerM2: p.harvestKg / p.areaM2,
     wueKgPerM3: safeWue(p.harvestKg, p.waterL),
   }));
-  if (plots.some((p) => p.treatment === null)) warnings.push('Some plots have no treatment yet: assign treatments (at random) before logging.');
-  if (plots.length && plots.every((p) => p.harvests === 0)) warnings.push('No harvests logged yet: water-use efficiency and harvest comparisons will appear after the first pick.');
+  if (plots.some((p) => p.treatment === null)) warn('unassigned');
+  if (plots.length && plots.every((p) => p.harvests === 0)) warn('noHarvest');
 
   // Per treatment totals.
   const treatmentNames = input.trial.treatments;
@@ -266,7 +284,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
                 pairs.map((p) => p.harvestKgPerM2[1]),
                 confidence,
               )
-            : { kind: 'descriptive', n: pairs.length, description: null, reason: 'No harvest logged yet.' },
+            : { kind: 'descriptive', n: pairs.length, description: null, reason: enT('analysis.reasons.noHarvest'), reasonKey: 'noHarvest' },
           wueKgPerM3: pairedMetric(
             pairs.map((p) => p.wueKgPerM3[0]),
             pairs.map((p) => p.wueKgPerM3[1]),
@@ -275,7 +293,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
         },
       };
     });
-  if (comparisons.every((c) => c.pairs.length === 0) && plots.length) warnings.push(`No pair or block holds both a "${control}" plot and a treated plot yet.`);
+  if (comparisons.every((c) => c.pairs.length === 0) && plots.length) warn('noPair', { control });
 
   // Cumulative water per plot (daily totals arrive summed; running sums here), one series per
   // plot: the plot's id, label and treatment once, not on each of its days.
@@ -298,7 +316,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
 
   // Crop water need: ET0 per weather day (FAO-56), Kc by stage, ETc; weekly against water applied.
   const kcCrop = cropKc(input.trial.crop, input.trial.kcOverrides);
-  if (!kcCrop) warnings.push('No FAO-56 crop coefficients for this crop: ET0 is shown, but not the crop water need (ETc).');
+  if (!kcCrop) warn('noKc');
   const methods: Record<Et0Method, number> = { 'penman-monteith': 0, hargreaves: 0 };
   const weeks = new Map<string, WeekRow>();
   // A season has ~150 days but ~3,000 daily rows: compute each day's week once.
@@ -349,7 +367,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
       totalEtc += e;
     }
   }
-  if (weatherDaysInTrial.length === 0) warnings.push('No weather days logged for this season: reference evapotranspiration (ET0) needs at least daily minimum and maximum temperatures.');
+  if (weatherDaysInTrial.length === 0) warn('noWeather');
 
   // Applied depth per treatment per week, and over the days that have weather (for the share of ETc).
   const areaByTreatment = new Map(treatments.map((t) => [t.treatment, t.areaM2]));
@@ -397,5 +415,6 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     },
     moisture: { series, stress },
     warnings,
+    notices,
   };
 }

@@ -6,9 +6,10 @@
  * Trials appear by their member's pseudonym and crop only (the results never carry names).
  */
 import type { CohortResults, EffectKey, EffectResult } from '../schemas/cohort-results';
-import { cropLabels, type Crop } from '../schemas/trials';
+import { enT, type Translate } from '../i18n/translate';
+import { cropIds, type Crop } from '../schemas/trials';
 import { toDisplay, unitLabel } from '../units';
-import { chartConfig, treatmentScale, type ChartOptions, type Spec } from './trial-charts';
+import { chartConfig, treatmentLegendLabels, treatmentName, treatmentScale, type ChartOptions, type Spec } from './trial-charts';
 
 const SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
 
@@ -18,21 +19,26 @@ const MUTED = '#8a7d6e';
 const POOLED = '#7c3820';
 const FLAGGED = '#b5562f';
 
-export const POOLED_ROW = 'Pooled estimate';
-export const PREDICTION_ROW = 'Prediction interval';
+/** Row names of the pooled estimate and the prediction interval in the forest plot, in the reader's language. */
+export const pooledRow = (t: Translate = enT) => t('charts.cohort.pooledRow');
+export const predictionRow = (t: Translate = enT) => t('charts.cohort.predictionRow');
+/** The English row names (kept for callers that predate translation). */
+export const POOLED_ROW = pooledRow();
+export const PREDICTION_ROW = predictionRow();
 
-export function cropLabel(crop: string): string {
-  return cropLabels[crop as Crop] ?? crop;
+/** A crop id as a reader names it; a grower's own crop name (not an id) stays as typed. */
+export function cropLabel(crop: string, t: Translate = enT): string {
+  return (cropIds as readonly string[]).includes(crop) ? t(`charts.crops.${crop as Crop}`) : crop;
 }
 
 /**
  * "Grower K7 · Tomato" for each trial; a grower's second trial of the same crop becomes
  * "Grower K7 · Tomato (2)", in the order the results list them (planting date).
  */
-export function trialLabels(results: Pick<CohortResults, 'trials'>): Record<string, string> {
+export function trialLabels(results: Pick<CohortResults, 'trials'>, tr: Translate = enT): Record<string, string> {
   const seen = new Map<string, number>();
   const counts = new Map<string, number>();
-  const base = (t: CohortResults['trials'][number]) => `${t.pseudonym} · ${cropLabel(t.crop)}`;
+  const base = (t: CohortResults['trials'][number]) => `${t.pseudonym} · ${cropLabel(t.crop, tr)}`;
   for (const t of results.trials) counts.set(base(t), (counts.get(base(t)) ?? 0) + 1);
   const out: Record<string, string> = {};
   for (const t of results.trials) {
@@ -55,30 +61,27 @@ export interface EffectAxis {
   limits: [number, number];
 }
 
-export function effectAxis(effect: EffectKey, o: Pick<ChartOptions, 'units'>, compact = false): EffectAxis {
+export function effectAxis(effect: EffectKey, o: Pick<ChartOptions, 'units' | 't'>, compact = false): EffectAxis {
   const axis = fullAxis(effect, o);
   if (!compact) return axis;
   // Narrow charts: titles short enough to sit under a plot of about 150 px.
-  const short: Record<EffectKey, [string, string]> = {
-    waterLogRatio: ['Water saved by the pots (%)', '← used more · used less →'],
-    wueLogRatio: ['Harvest per litre, change (%)', '← less · more with pots →'],
-    harvestPerPlantDiff: [`Harvest per plant (${axis.unit})`, '← less · more with pots →'],
-  };
-  return { ...axis, title: short[effect] };
+  const t = o.t ?? enT;
+  return { ...axis, title: [t(`charts.cohort.compactAxis.${effect}`, { unit: axis.unit }), t(`charts.cohort.compactAxis.${effect}Side`)] };
 }
 
-function fullAxis(effect: EffectKey, o: Pick<ChartOptions, 'units'>): EffectAxis {
+function fullAxis(effect: EffectKey, o: Pick<ChartOptions, 'units' | 't'>): EffectAxis {
+  const t = o.t ?? enT;
   switch (effect) {
     case 'waterLogRatio':
       return {
-        title: ['Water saved by the pots, % of surface watering', '← pots used more · pots used less →'],
+        title: [t('charts.cohort.axis.waterLogRatio'), t('charts.cohort.axis.waterLogRatioSide')],
         unit: '%',
         convert: (v) => v,
         limits: [-100, 100],
       };
     case 'wueLogRatio':
       return {
-        title: ['Change in harvest per litre of water with pots, %', '← less with pots · more with pots →'],
+        title: [t('charts.cohort.axis.wueLogRatio'), t('charts.cohort.axis.wueLogRatioSide')],
         unit: '%',
         convert: (v) => v,
         limits: [-100, 300],
@@ -86,7 +89,7 @@ function fullAxis(effect: EffectKey, o: Pick<ChartOptions, 'units'>): EffectAxis
     case 'harvestPerPlantDiff': {
       const unit = unitLabel('mass', o.units);
       return {
-        title: [`Harvest per plant, pots − surface (${unit})`, '← less with pots · more with pots →'],
+        title: [t('charts.cohort.axis.harvestPerPlantDiff', { unit }), t('charts.cohort.axis.harvestPerPlantDiffSide')],
         unit,
         convert: (v) => toDisplay(v, 'mass', o.units),
         limits: [-Infinity, Infinity],
@@ -122,8 +125,13 @@ export interface ForestOptions extends ChartOptions {
 export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: ForestOptions): Spec | null {
   const e: EffectResult = results.effects[effect];
   if (!e.forest.length) return null;
+  const t = o.t ?? enT;
   const axis = effectAxis(effect, o, o.compact);
-  const labels = trialLabels(results);
+  const labels = trialLabels(results, t);
+  const POOLED_LABEL = pooledRow(t);
+  const PREDICTION_LABEL = predictionRow(t);
+  const FLAG_YES = t('charts.cohort.flagged');
+  const FLAG_NO = t('charts.cohort.notFlagged');
   const confidence = Math.round(results.options.confidence * 100);
   const c = axis.convert;
 
@@ -134,7 +142,7 @@ export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: For
       lo: c(f.display.ci[0]),
       hi: c(f.display.ci[1]),
       weight: f.weightPercent,
-      group: f.flagged ? 'Has a quality flag' : 'No quality flag',
+      group: f.flagged ? FLAG_YES : FLAG_NO,
       pairs: f.pairs,
     }))
     .sort((a, b) => b.estimate - a.estimate || a.row.localeCompare(b.row));
@@ -156,7 +164,7 @@ export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: For
     hiClipped: t.hi > domain[1],
   }));
 
-  const order = [...rows.map((r) => r.row), ...(p ? [POOLED_ROW] : []), ...(pi ? [PREDICTION_ROW] : [])];
+  const order = [...rows.map((r) => r.row), ...(p ? [POOLED_LABEL] : []), ...(pi ? [PREDICTION_LABEL] : [])];
   // Every layer names the same axis title, or Vega-Lite would join the field names into one.
   const x = (field: string) => ({
     field,
@@ -223,29 +231,29 @@ export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: For
       encoding: {
         y,
         x: x('estimate'),
-        size: { field: 'weight', type: 'quantitative', title: 'Weight (%)', scale: { range: [40, 360], zero: true }, legend: null },
+        size: { field: 'weight', type: 'quantitative', title: t('charts.cohort.weight'), scale: { range: [40, 360], zero: true }, legend: null },
         color: {
           field: 'group',
           type: 'nominal',
           title: null,
-          scale: { domain: ['No quality flag', 'Has a quality flag'], range: [INK, FLAGGED] },
+          scale: { domain: [FLAG_NO, FLAG_YES], range: [INK, FLAGGED] },
           legend,
         },
         shape: {
           field: 'group',
           type: 'nominal',
           title: null,
-          scale: { domain: ['No quality flag', 'Has a quality flag'], range: ['square', 'triangle-up'] },
+          scale: { domain: [FLAG_NO, FLAG_YES], range: ['square', 'triangle-up'] },
           legend,
         },
         tooltip: [
-          { field: 'row', title: 'Trial' },
-          { field: 'estimate', title: `Estimate (${axis.unit})`, format: fmt },
-          { field: 'lo', title: `${confidence}% CI from`, format: fmt },
-          { field: 'hi', title: 'to', format: fmt },
-          { field: 'weight', title: 'Weight (%)', format: '.1f' },
-          { field: 'pairs', title: 'Pairs' },
-          { field: 'group', title: 'Quality' },
+          { field: 'row', title: t('charts.cohort.trial') },
+          { field: 'estimate', title: t('charts.cohort.estimate', { unit: axis.unit }), format: fmt },
+          { field: 'lo', title: t('charts.cohort.ciFrom', { confidence }), format: fmt },
+          { field: 'hi', title: t('charts.cohort.to'), format: fmt },
+          { field: 'weight', title: t('charts.cohort.weight'), format: '.1f' },
+          { field: 'pairs', title: t('charts.cohort.pairs') },
+          { field: 'group', title: t('charts.cohort.quality') },
         ],
       },
     },
@@ -255,31 +263,31 @@ export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: For
     layers.push({
       data: {
         values: [
-          { row: POOLED_ROW, x: p.lo, w: 0, i: 0 },
-          { row: POOLED_ROW, x: p.estimate, w: 14, i: 1 },
-          { row: POOLED_ROW, x: p.hi, w: 0, i: 2 },
+          { row: POOLED_LABEL, x: p.lo, w: 0, i: 0 },
+          { row: POOLED_LABEL, x: p.estimate, w: 14, i: 1 },
+          { row: POOLED_LABEL, x: p.hi, w: 0, i: 2 },
         ],
       },
       mark: { type: 'trail', color: POOLED },
       encoding: { y, x: x('x'), size: { field: 'w', type: 'quantitative', scale: null, legend: null }, order: { field: 'i' } },
     });
     layers.push({
-      data: { values: [{ row: POOLED_ROW, ...p }] },
+      data: { values: [{ row: POOLED_LABEL, ...p }] },
       mark: { type: 'rule', opacity: 0 },
       encoding: {
         y,
         x: x('lo'),
         x2: { field: 'hi' },
         tooltip: [
-          { field: 'estimate', title: `Pooled (${axis.unit})`, format: fmt },
-          { field: 'lo', title: `${confidence}% CI from`, format: fmt },
-          { field: 'hi', title: 'to', format: fmt },
+          { field: 'estimate', title: t('charts.cohort.pooled', { unit: axis.unit }), format: fmt },
+          { field: 'lo', title: t('charts.cohort.ciFrom', { confidence }), format: fmt },
+          { field: 'hi', title: t('charts.cohort.to'), format: fmt },
         ],
       },
     });
   }
   if (pi) {
-    const piRow = { row: PREDICTION_ROW, lo: clip(pi.lo), hi: clip(pi.hi), rawLo: pi.lo, rawHi: pi.hi };
+    const piRow = { row: PREDICTION_LABEL, lo: clip(pi.lo), hi: clip(pi.hi), rawLo: pi.lo, rawHi: pi.hi };
     layers.push(
       {
         data: { values: [piRow] },
@@ -289,16 +297,16 @@ export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: For
           x: x('lo'),
           x2: { field: 'hi' },
           tooltip: [
-            { field: 'rawLo', title: `Prediction interval from (${axis.unit})`, format: fmt },
-            { field: 'rawHi', title: 'to', format: fmt },
+            { field: 'rawLo', title: t('charts.cohort.predictionFrom', { unit: axis.unit }), format: fmt },
+            { field: 'rawHi', title: t('charts.cohort.to'), format: fmt },
           ],
         },
       },
       {
         data: {
           values: [
-            { row: PREDICTION_ROW, at: piRow.lo },
-            { row: PREDICTION_ROW, at: piRow.hi },
+            { row: PREDICTION_LABEL, at: piRow.lo },
+            { row: PREDICTION_LABEL, at: piRow.hi },
           ],
         },
         mark: { type: 'tick', color: POOLED, thickness: 2, size: 10, orient: 'vertical' },
@@ -327,11 +335,13 @@ export function cohortProgressSpec(results: Pick<CohortResults, 'progress'>, o: 
   const byDepth = results.progress.every((r) => r.cumulativeMm !== null);
   const quantity = byDepth ? ('length-small' as const) : ('volume' as const);
   const unit = unitLabel(quantity, o.units);
+  const t = o.t ?? enT;
   const values = results.progress.map((r) => ({
     week: r.weekStart,
-    weekLabel: weekLabel(r.weekStart),
+    weekLabel: weekLabel(r.weekStart, t),
     isoWeek: r.isoWeek,
     treatment: r.treatment,
+    treatmentName: treatmentName(r.treatment, t),
     value: toDisplay(byDepth ? r.cumulativeMm! : r.cumulativeLitres, quantity, o.units),
     trials: r.trials,
   }));
@@ -342,8 +352,8 @@ export function cohortProgressSpec(results: Pick<CohortResults, 'progress'>, o: 
   const weekAxis = {
     field: 'weekLabel',
     type: 'ordinal',
-    title: 'Week starting (Monday)',
-    sort: weeks.map(weekLabel),
+    title: t('charts.cohort.weekStartingMonday'),
+    sort: weeks.map((w) => weekLabel(w, t)),
     axis: { labelAngle: 0, labelOverlap: 'parity' },
   };
 
@@ -362,13 +372,13 @@ export function cohortProgressSpec(results: Pick<CohortResults, 'progress'>, o: 
         mark: { type: 'line', point: true },
         encoding: {
           x: weekAxis,
-          y: { field: 'value', type: 'quantitative', title: byDepth ? `Water so far, depth (${unit})` : `Water so far (${unit})` },
-          color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale, legend: { orient: 'bottom', direction: 'horizontal' } },
+          y: { field: 'value', type: 'quantitative', title: byDepth ? t('charts.cohort.waterSoFarDepth', { unit }) : t('charts.cohort.waterSoFar', { unit }) },
+          color: { field: 'treatment', type: 'nominal', title: t('charts.cohort.treatment'), scale, legend: { orient: 'bottom', direction: 'horizontal', ...treatmentLegendLabels(t) } },
           tooltip: [
-            { field: 'isoWeek', title: 'Week' },
-            { field: 'treatment', title: 'Treatment' },
+            { field: 'isoWeek', title: t('charts.cohort.week') },
+            { field: 'treatmentName', title: t('charts.cohort.treatment') },
             { field: 'value', title: unit, format: '.1f' },
-            { field: 'trials', title: 'Trials logging that week' },
+            { field: 'trials', title: t('charts.cohort.trialsLogging') },
           ],
         },
       },
@@ -378,7 +388,7 @@ export function cohortProgressSpec(results: Pick<CohortResults, 'progress'>, o: 
         encoding: {
           x: weekAxis,
           y: { field: 'value', type: 'quantitative' },
-          text: { field: 'treatment' },
+          text: { field: 'treatmentName' },
           color: { field: 'treatment', type: 'nominal', scale },
         },
       },
@@ -386,12 +396,10 @@ export function cohortProgressSpec(results: Pick<CohortResults, 'progress'>, o: 
   };
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
-/** "2026-06-01" → "1 Jun". */
-export function weekLabel(isoDate: string): string {
+/** "2026-06-01" → "1 Jun" ("1 jun" in Spanish). */
+export function weekLabel(isoDate: string, t: Translate = enT): string {
   const [, month, day] = isoDate.split('-').map(Number);
-  return `${day} ${MONTHS[(month ?? 1) - 1]}`;
+  return t('charts.cohort.weekLabel', { day: String(day), month: t('charts.cohort.months').split(',')[(month ?? 1) - 1] ?? '' });
 }
 
 export interface CohortChart {
@@ -400,28 +408,23 @@ export interface CohortChart {
   spec: Spec;
 }
 
-const FOREST_TITLES: Record<EffectKey, string> = {
-  waterLogRatio: 'Water saved in each trial and pooled',
-  wueLogRatio: 'Water-use efficiency change in each trial and pooled',
-  harvestPerPlantDiff: 'Harvest per plant difference in each trial and pooled',
-};
-
-export function forestTitle(effect: EffectKey): string {
-  return FOREST_TITLES[effect];
+export function forestTitle(effect: EffectKey, t: Translate = enT): string {
+  return t(`charts.cohort.titles.${effect}`);
 }
 
 /** Every chart of a cohort that has data, with a file-friendly id (for the report bundle). */
 export function cohortCharts(results: CohortResults, o: ChartOptions): CohortChart[] {
   const out: CohortChart[] = [];
+  const t = o.t ?? enT;
   for (const [effect, id] of [
     ['waterLogRatio', 'forest-water-saved'],
     ['wueLogRatio', 'forest-water-use-efficiency'],
     ['harvestPerPlantDiff', 'forest-harvest-per-plant'],
   ] as const) {
     const spec = forestPlotSpec(results, effect, o);
-    if (spec) out.push({ id, title: FOREST_TITLES[effect], spec });
+    if (spec) out.push({ id, title: forestTitle(effect, t), spec });
   }
   const progress = cohortProgressSpec(results, o);
-  if (progress) out.push({ id: 'cohort-water-progress', title: 'Water applied over the season, all gardens', spec: progress });
+  if (progress) out.push({ id: 'cohort-water-progress', title: t('charts.cohort.titles.progress'), spec: progress });
   return out;
 }

@@ -4,6 +4,7 @@
  * server, so a chart in a student's report is the chart they saw.
  */
 import type { TrialAnalysis } from '../analysis/trial-analysis';
+import { enT, type Translate } from '../i18n/translate';
 import { toDisplay, unitLabel, type UnitSystem } from '../units';
 
 /** Seepwise's two treatment colours, the same in every chart (always with a legend or label too). */
@@ -29,6 +30,8 @@ export interface ChartOptions {
   units: UnitSystem;
   /** 'container' in the browser; a number of pixels when rendering files. */
   width: number | 'container';
+  /** Titles, axis and legend labels in the reader's language (shared/i18n/translate.ts); English when left out. */
+  t?: Translate;
 }
 
 export type Spec = Record<string, unknown>;
@@ -39,22 +42,39 @@ export interface TrialChart {
   spec: Spec;
 }
 
+/** A treatment as a reader names it: the stored names 'olla' and 'surface' translated, a grower's own name as typed. */
+export function treatmentName(name: string, t: Translate = enT): string {
+  return name === 'olla' || name === 'surface' || name === 'unassigned' ? t(`charts.treatments.${name}`) : name;
+}
+
+/**
+ * A legend that shows translated treatment names while the data keep the stored ones (so colours,
+ * tooltips and the data mapping stay language-free). A Vega expression, read by vega-interpreter too.
+ */
+export function treatmentLegendLabels(t: Translate = enT): { labelExpr: string } | Record<string, never> {
+  const pairs = (['olla', 'surface', 'unassigned'] as const).filter((n) => treatmentName(n, t) !== n);
+  if (!pairs.length) return {};
+  const expr = pairs.reduceRight((rest, n) => `datum.label === ${JSON.stringify(n)} ? ${JSON.stringify(treatmentName(n, t))} : ${rest}`, 'datum.label');
+  return { labelExpr: expr };
+}
+
 function base(o: ChartOptions, height: number): Spec {
   return { $schema: SCHEMA, width: o.width, height, config: chartConfig };
 }
 
 export function cumulativeWaterSpec(a: TrialAnalysis, treatments: string[], o: ChartOptions): Spec {
   const vol = unitLabel('volume', o.units);
+  const t = o.t ?? enT;
   return {
     ...base(o, 260),
     data: { values: a.cumulative.flatMap((s) => s.points.map(([day, litres]) => ({ plot: s.label, treatment: s.treatment ?? 'unassigned', day, value: toDisplay(litres, 'volume', o.units) }))) },
     mark: { type: 'line', interpolate: 'step-after' },
     encoding: {
-      x: { field: 'day', type: 'temporal', title: 'Date' },
-      y: { field: 'value', type: 'quantitative', title: `Water applied so far (${vol})` },
-      color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale: treatmentScale(treatments) },
+      x: { field: 'day', type: 'temporal', title: t('charts.trial.date') },
+      y: { field: 'value', type: 'quantitative', title: t('charts.trial.waterSoFar', { unit: vol }) },
+      color: { field: 'treatment', type: 'nominal', title: t('charts.trial.treatment'), scale: treatmentScale(treatments), legend: treatmentLegendLabels(t) },
       detail: { field: 'plot' },
-      tooltip: [{ field: 'plot', title: 'Plot' }, { field: 'day', type: 'temporal' }, { field: 'value', format: '.1f', title: vol }],
+      tooltip: [{ field: 'plot', title: t('charts.trial.plot') }, { field: 'day', type: 'temporal', title: t('charts.trial.date') }, { field: 'value', format: '.1f', title: vol }],
     },
   };
 }
@@ -63,6 +83,7 @@ export function pairedDifferenceSpec(a: TrialAnalysis, o: ChartOptions, comparis
   const c = a.comparisons[comparisonIndex];
   if (!c || !c.pairs.length) return null;
   const unit = unitLabel('length-small', o.units);
+  const t = o.t ?? enT;
   const d = (mm: number) => toDisplay(mm, 'length-small', o.units);
   const m = c.metrics.waterMm;
   const ci = m.kind === 'test' && !m.result.constantDifferences ? [{ lo: d(m.result.ci[0]), hi: d(m.result.ci[1]), mean: d(m.result.meanDifference) }] : [];
@@ -73,9 +94,16 @@ export function pairedDifferenceSpec(a: TrialAnalysis, o: ChartOptions, comparis
         data: { values: c.pairs.map((p) => ({ pair: p.blockKey, difference: d(p.waterMm[0] - p.waterMm[1]) })) },
         mark: { type: 'point', filled: true, size: 80, color: treatmentColours.olla },
         encoding: {
-          y: { field: 'pair', type: 'nominal', title: 'Pair' },
-          x: { field: 'difference', type: 'quantitative', title: `Water difference, ${c.treatment} − ${c.control} (${unit})` },
-          tooltip: [{ field: 'pair' }, { field: 'difference', format: '.1f' }],
+          y: { field: 'pair', type: 'nominal', title: t('charts.trial.pair') },
+          x: {
+            field: 'difference',
+            type: 'quantitative',
+            title: t('charts.trial.waterDifference', { treatment: treatmentName(c.treatment, t), control: treatmentName(c.control, t), unit }),
+          },
+          tooltip: [
+            { field: 'pair', title: t('charts.trial.pair') },
+            { field: 'difference', format: '.1f', title: t('charts.trial.difference', { unit }) },
+          ],
         },
       },
       { data: { values: [{ x: 0 }] }, mark: { type: 'rule', color: '#8a7d6e', strokeDash: [4, 4] }, encoding: { x: { field: 'x', type: 'quantitative' } } },
@@ -92,9 +120,10 @@ export function pairedDifferenceSpec(a: TrialAnalysis, o: ChartOptions, comparis
 export function harvestVsWaterSpec(a: TrialAnalysis, treatments: string[], o: ChartOptions): Spec {
   const points = a.plots.map((p) => ({ plot: p.label, treatment: p.treatment ?? 'unassigned', waterM3: p.waterL / 1000, harvestKg: p.harvestKg }));
   const maxW = Math.max(0.001, ...points.map((p) => p.waterM3));
+  const t = o.t ?? enT;
   const lines = [5, 10, 20].flatMap((w) => [
-    { wue: `${w} kg/m³`, waterM3: 0, harvestKg: 0 },
-    { wue: `${w} kg/m³`, waterM3: maxW, harvestKg: w * maxW },
+    { wue: t('charts.trial.wueLine', { value: w }), waterM3: 0, harvestKg: 0 },
+    { wue: t('charts.trial.wueLine', { value: w }), waterM3: maxW, harvestKg: w * maxW },
   ]);
   return {
     ...base(o, 260),
@@ -102,7 +131,11 @@ export function harvestVsWaterSpec(a: TrialAnalysis, treatments: string[], o: Ch
       {
         data: { values: lines },
         mark: { type: 'line', strokeDash: [3, 3], color: '#c9ab7f' },
-        encoding: { x: { field: 'waterM3', type: 'quantitative', title: 'Water applied (m³)' }, y: { field: 'harvestKg', type: 'quantitative', title: 'Harvest (kg)' }, detail: { field: 'wue' } },
+        encoding: {
+          x: { field: 'waterM3', type: 'quantitative', title: t('charts.trial.waterAppliedM3') },
+          y: { field: 'harvestKg', type: 'quantitative', title: t('charts.trial.harvestKg') },
+          detail: { field: 'wue' },
+        },
       },
       {
         data: { values: points },
@@ -110,9 +143,13 @@ export function harvestVsWaterSpec(a: TrialAnalysis, treatments: string[], o: Ch
         encoding: {
           x: { field: 'waterM3', type: 'quantitative' },
           y: { field: 'harvestKg', type: 'quantitative' },
-          color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale: treatmentScale(treatments) },
-          shape: { field: 'treatment', type: 'nominal', title: 'Treatment' },
-          tooltip: [{ field: 'plot', title: 'Plot' }, { field: 'waterM3', format: '.3f' }, { field: 'harvestKg', format: '.2f' }],
+          color: { field: 'treatment', type: 'nominal', title: t('charts.trial.treatment'), scale: treatmentScale(treatments), legend: treatmentLegendLabels(t) },
+          shape: { field: 'treatment', type: 'nominal', title: t('charts.trial.treatment'), legend: treatmentLegendLabels(t) },
+          tooltip: [
+            { field: 'plot', title: t('charts.trial.plot') },
+            { field: 'waterM3', format: '.3f', title: t('charts.trial.waterAppliedM3') },
+            { field: 'harvestKg', format: '.2f', title: t('charts.trial.harvestKg') },
+          ],
         },
       },
     ],
@@ -121,10 +158,13 @@ export function harvestVsWaterSpec(a: TrialAnalysis, treatments: string[], o: Ch
 
 export function weeklyNeedSpec(a: TrialAnalysis, treatments: string[], o: ChartOptions): Spec | null {
   const unit = unitLabel('length-small', o.units);
+  const t = o.t ?? enT;
+  const applied = (name: string) => t('charts.trial.applied', { treatment: treatmentName(name, t) });
+  const need = t('charts.trial.cropNeed');
   const d = (mm: number) => toDisplay(mm, 'length-small', o.units);
   const values = a.cropWater.weekly.flatMap((w) => [
-    ...Object.entries(w.appliedMm).map(([t, mm]) => ({ week: w.weekStart, series: `applied: ${t}`, value: d(mm) })),
-    ...(w.etcMm !== null ? [{ week: w.weekStart, series: 'crop need (ETc)', value: d(w.etcMm) }] : []),
+    ...Object.entries(w.appliedMm).map(([name, mm]) => ({ week: w.weekStart, series: applied(name), value: d(mm) })),
+    ...(w.etcMm !== null ? [{ week: w.weekStart, series: need, value: d(w.etcMm) }] : []),
   ]);
   if (!values.length) return null;
   const colour = treatmentScale(treatments);
@@ -133,9 +173,9 @@ export function weeklyNeedSpec(a: TrialAnalysis, treatments: string[], o: ChartO
     data: { values },
     mark: { type: 'line', point: true },
     encoding: {
-      x: { field: 'week', type: 'temporal', title: 'Week starting' },
-      y: { field: 'value', type: 'quantitative', title: `Per week (${unit})` },
-      color: { field: 'series', type: 'nominal', title: null, scale: { domain: [...treatments.map((t) => `applied: ${t}`), 'crop need (ETc)'], range: [...colour.range, '#b5562f'] } },
+      x: { field: 'week', type: 'temporal', title: t('charts.trial.weekStarting') },
+      y: { field: 'value', type: 'quantitative', title: t('charts.trial.perWeek', { unit }) },
+      color: { field: 'series', type: 'nominal', title: null, scale: { domain: [...treatments.map(applied), need], range: [...colour.range, '#b5562f'] } },
       strokeDash: { field: 'series', type: 'nominal', legend: null },
     },
   };
@@ -143,20 +183,21 @@ export function weeklyNeedSpec(a: TrialAnalysis, treatments: string[], o: ChartO
 
 export function moistureSpec(a: TrialAnalysis, treatments: string[], o: ChartOptions): Spec | null {
   if (!a.moisture.series.length) return null;
+  const t = o.t ?? enT;
   return {
     $schema: SCHEMA,
     config: chartConfig,
     data: { values: a.moisture.series },
-    facet: { row: { field: 'method', type: 'nominal', title: 'Method (each on its own scale)' } },
+    facet: { row: { field: 'method', type: 'nominal', title: t('charts.trial.moistureMethod') } },
     resolve: { scale: { y: 'independent' } },
     spec: {
       width: o.width === 'container' ? 600 : o.width,
       height: 140,
       mark: { type: 'line', point: true },
       encoding: {
-        x: { field: 'day', type: 'temporal', title: 'Date' },
-        y: { field: 'value', type: 'quantitative', title: 'Daily mean' },
-        color: { field: 'treatment', type: 'nominal', title: 'Treatment', scale: treatmentScale(treatments) },
+        x: { field: 'day', type: 'temporal', title: t('charts.trial.date') },
+        y: { field: 'value', type: 'quantitative', title: t('charts.trial.dailyMean') },
+        color: { field: 'treatment', type: 'nominal', title: t('charts.trial.treatment'), scale: treatmentScale(treatments), legend: treatmentLegendLabels(t) },
       },
     },
   };
@@ -164,13 +205,14 @@ export function moistureSpec(a: TrialAnalysis, treatments: string[], o: ChartOpt
 
 /** Every chart of a trial that has data, with a file-friendly id. */
 export function trialCharts(a: TrialAnalysis, treatments: string[], o: ChartOptions): TrialChart[] {
-  const out: TrialChart[] = [{ id: 'cumulative-water', title: 'Water applied over the season, per plot', spec: cumulativeWaterSpec(a, treatments, o) }];
+  const t = o.t ?? enT;
+  const out: TrialChart[] = [{ id: 'cumulative-water', title: t('charts.trial.titles.cumulativeWater'), spec: cumulativeWaterSpec(a, treatments, o) }];
   const diff = pairedDifferenceSpec(a, o);
-  if (diff) out.push({ id: 'paired-differences', title: 'Water difference in each pair', spec: diff });
-  out.push({ id: 'harvest-vs-water', title: 'Harvest against water', spec: harvestVsWaterSpec(a, treatments, o) });
+  if (diff) out.push({ id: 'paired-differences', title: t('charts.trial.titles.pairedDifferences'), spec: diff });
+  out.push({ id: 'harvest-vs-water', title: t('charts.trial.titles.harvestVsWater'), spec: harvestVsWaterSpec(a, treatments, o) });
   const weekly = weeklyNeedSpec(a, treatments, o);
-  if (weekly) out.push({ id: 'weekly-water-need', title: 'Weekly crop water need against water applied', spec: weekly });
+  if (weekly) out.push({ id: 'weekly-water-need', title: t('charts.trial.titles.weeklyNeed'), spec: weekly });
   const moisture = moistureSpec(a, treatments, o);
-  if (moisture) out.push({ id: 'soil-moisture', title: 'Soil moisture per treatment', spec: moisture });
+  if (moisture) out.push({ id: 'soil-moisture', title: t('charts.trial.titles.moisture'), spec: moisture });
   return out;
 }

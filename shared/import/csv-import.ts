@@ -186,11 +186,30 @@ export function parseInstant(value: string, format: DateFormat, offsetMinutes: n
   return new Date(ms).toISOString();
 }
 
+/**
+ * What is wrong with a row, as a code the client words in the reader's language (`params` fill
+ * in the words); `reason` keeps the same message in English for logs, the API and older clients.
+ * Errors found by the server's record schema have no code (their `reason` is the schema's message).
+ */
+export type RowErrorCode =
+  | 'missingColumn'
+  | 'fieldCount'
+  | 'empty'
+  | 'notBoolean'
+  | 'notNumber'
+  | 'notWholeNumber'
+  | 'notDate'
+  | 'notDateTime'
+  | 'unknownPlot'
+  | 'outsideTrial';
+
 export interface RowError {
   /** 1-based line in the file, counting the header as line 1. */
   line: number;
   column: string;
   reason: string;
+  code?: RowErrorCode;
+  params?: Record<string, string | number>;
 }
 
 export interface ImportOptions {
@@ -231,12 +250,21 @@ export function normaliseRows(rows: string[][], o: ImportOptions): { records: No
   const records: NormalisedRow[] = [];
   const missing = fields.filter((f) => f.required && o.mapping[f.key] === undefined);
   if (missing.length) {
-    return { records, errors: missing.map((f) => ({ line: 1, column: f.label, reason: `No column is mapped to "${f.label}", which is required.` })) };
+    return {
+      records,
+      errors: missing.map((f) => ({ line: 1, column: f.label, reason: `No column is mapped to "${f.label}", which is required.`, code: 'missingColumn' as const, params: { field: f.key } })),
+    };
   }
   rows.forEach((row, i) => {
     const line = i + 2;
     if (row.length !== o.headers.length) {
-      errors.push({ line, column: '', reason: `This row has ${row.length} field${row.length === 1 ? '' : 's'}; the header has ${o.headers.length}.` });
+      errors.push({
+        line,
+        column: '',
+        reason: `This row has ${row.length} field${row.length === 1 ? '' : 's'}; the header has ${o.headers.length}.`,
+        code: 'fieldCount',
+        params: { count: row.length, expected: o.headers.length },
+      });
       return;
     }
     const rec: NormalisedRow = { line };
@@ -246,13 +274,13 @@ export function normaliseRows(rows: string[][], o: ImportOptions): { records: No
       if (idx === undefined) continue;
       const raw = (row[idx] ?? '').trim();
       const column = o.headers[idx] ?? f.label;
-      const fail = (reason: string) => {
-        errors.push({ line, column, reason });
+      const fail = (reason: string, code: RowErrorCode) => {
+        errors.push({ line, column, reason, code, params: { value: raw, field: f.key } });
         ok = false;
       };
       if (raw === '') {
         // An empty optional cell is left out, so the record's own default applies.
-        if (f.required) fail(`${f.label} is empty.`);
+        if (f.required) fail(`${f.label} is empty.`, 'empty');
         continue;
       }
       switch (f.type) {
@@ -261,27 +289,27 @@ export function normaliseRows(rows: string[][], o: ImportOptions): { records: No
           break;
         case 'boolean': {
           const b = parseBoolean(raw);
-          if (b === null) fail(`"${raw}" is not yes or no.`);
+          if (b === null) fail(`"${raw}" is not yes or no.`, 'notBoolean');
           else rec[f.key] = b;
           break;
         }
         case 'number':
         case 'integer': {
           const n = parseNumber(raw);
-          if (n === null) fail(`"${raw}" is not a number.`);
-          else if (f.type === 'integer' && !Number.isInteger(n)) fail(`"${raw}" is not a whole number.`);
+          if (n === null) fail(`"${raw}" is not a number.`, 'notNumber');
+          else if (f.type === 'integer' && !Number.isInteger(n)) fail(`"${raw}" is not a whole number.`, 'notWholeNumber');
           else rec[f.key] = f.quantity ? fromDisplay(n, f.quantity, o.units[f.key] ?? 'metric') : n;
           break;
         }
         case 'date': {
           const d = parseDay(raw, o.dateFormat);
-          if (!d) fail(`"${raw}" is not a date in the chosen format.`);
+          if (!d) fail(`"${raw}" is not a date in the chosen format.`, 'notDate');
           else rec[f.key] = d;
           break;
         }
         case 'datetime': {
           const d = parseInstant(raw, o.dateFormat, o.offsetMinutes);
-          if (!d) fail(`"${raw}" is not a date and time in the chosen format.`);
+          if (!d) fail(`"${raw}" is not a date and time in the chosen format.`, 'notDateTime');
           else rec[f.key] = d;
           break;
         }

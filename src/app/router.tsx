@@ -20,9 +20,8 @@ import { potsQueryOptions } from '@/features/pots/api/get-pots';
 import { plotsQueryOptions } from '@/features/trials/api/get-plots';
 import { trialQueryOptions } from '@/features/trials/api/get-trial';
 import { trialsQueryOptions } from '@/features/trials/api/get-trials';
-import { ForgotPasswordPage, ResetPasswordPage, SignInPage, SignUpPage, VerifyEmailPage } from './routes/auth-pages';
-import { UnsubscribePage, unsubscribePath } from './routes/unsubscribe';
-import { RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
+import { SignInPage } from './routes/sign-in';
+import { Loading, RedirectIfSignedIn, RequireAuth, ShellIfSignedIn } from './routes/guards';
 import { NotFoundPage } from './routes/not-found';
 import { RootLayout } from './routes/root-layout';
 import { RouteErrorPage } from './routes/route-error';
@@ -83,20 +82,20 @@ export function createAppRouter(queryClient: QueryClient) {
     {
       loader: sessionLoader,
       element: <RootLayout />,
-      hydrateFallbackElement: <p className="p-8">Loading…</p>,
+      hydrateFallbackElement: <Loading />,
       errorElement: <RouteErrorPage />,
       children: [
         {
           element: <RedirectIfSignedIn />,
           children: [
             { path: paths.signIn, element: <SignInPage /> },
-            { path: paths.signUp, element: <SignUpPage /> },
+            { path: paths.signUp, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.SignUpPage) },
           ],
         },
-        { path: paths.forgotPassword, element: <ForgotPasswordPage /> },
-        { path: paths.resetPassword, element: <ResetPasswordPage /> },
-        { path: paths.verifyEmail, element: <VerifyEmailPage /> },
-        { path: unsubscribePath, element: <UnsubscribePage /> },
+        { path: paths.forgotPassword, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.ForgotPasswordPage) },
+        { path: paths.resetPassword, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.ResetPasswordPage) },
+        { path: paths.verifyEmail, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.VerifyEmailPage) },
+        { path: paths.unsubscribe, lazy: lazyPage(() => import('./routes/unsubscribe'), (m) => m.UnsubscribePage) },
         {
           element: <ShellIfSignedIn />,
           children: [{ path: paths.joinCohort, lazy: lazyPage(() => import('./routes/join'), (m) => m.JoinPage) }],

@@ -6,6 +6,8 @@ export const paths = {
   forgotPassword: '/forgot-password',
   resetPassword: '/reset-password',
   verifyEmail: '/verify-email',
+  /** The unsubscribe link in every e-mail (the server writes `${publicUrl}/unsubscribe?token=…`). */
+  unsubscribe: '/unsubscribe',
   account: '/account',
   guides: '/guides',
   admin: '/admin',

@@ -1,22 +1,76 @@
 import type { ApiError } from '@shared/api-error';
+import { i18n } from '@/i18n';
+import enCommon from '@/locales/en/common.json';
+import { issueMessage, type IssueFacts } from './validation-messages';
 
-/** An API failure with the server's code, message and field details. */
+type Reason = keyof typeof enCommon.apiErrors.reasons;
+type FieldReason = keyof typeof enCommon.apiErrors.fields;
+type Params = Record<string, string | number>;
+
+const isReason = (r: string | undefined): r is Reason => r !== undefined && Object.hasOwn(enCommon.apiErrors.reasons, r);
+const isFieldReason = (r: string | undefined): r is FieldReason => r !== undefined && Object.hasOwn(enCommon.apiErrors.fields, r);
+
+/** Codes whose message never names a particular case: worded by the code alone. */
+const GENERIC_CODES = ['unauthenticated', 'csrf_invalid', 'service_unavailable', 'internal_error'] as const;
+type GenericCode = (typeof GENERIC_CODES)[number];
+const isGenericCode = (c: string): c is GenericCode => (GENERIC_CODES as readonly string[]).includes(c);
+
+interface FieldDetail {
+  path?: string;
+  message?: string;
+  reason?: string;
+  issue?: IssueFacts;
+}
+
+/**
+ * The reader's words for a failure the server sent: by its `reason` (the exact case), else by a
+ * code that means one thing only, else the server's own (English) text. A schema check the
+ * server made (`validation_failed` whose details all carry the issue facts) reads as the form's.
+ */
+function localizedMessage(code: string, serverMessage: string, reason?: string, params?: Params, details?: unknown): string {
+  if (isReason(reason)) return i18n.t(($) => $.apiErrors.reasons[reason], Object.fromEntries(Object.entries(params ?? {}).map(([k, v]) => [k, String(v)])));
+  if (isGenericCode(code)) return i18n.t(($) => $.apiErrors.codes[code]);
+  if (code === 'validation_failed' && Array.isArray(details) && details.length > 0 && (details as FieldDetail[]).every((d) => d?.issue)) {
+    return i18n.t(($) => $.apiErrors.reasons.invalid_fields);
+  }
+  return serverMessage;
+}
+
+function localizedFieldMessage(d: FieldDetail): string | undefined {
+  if (isFieldReason(d.reason)) return i18n.t(($) => $.apiErrors.fields[d.reason as FieldReason]);
+  if (d.issue && typeof d.issue.code === 'string') return issueMessage(d.issue);
+  return d.message;
+}
+
+/**
+ * An API failure with the server's code, message and field details. `message` is in the
+ * reader's language where the case is known (see `localizedMessage`); `serverMessage` keeps the
+ * server's words.
+ */
 export class ApiRequestError extends Error {
+  readonly serverMessage: string;
+  readonly reason?: string;
+  readonly params?: Params;
   constructor(
     readonly status: number,
     readonly code: string,
     message: string,
     readonly details?: unknown,
+    extra: { reason?: string; params?: Params } = {},
   ) {
-    super(message);
+    super(localizedMessage(code, message, extra.reason, extra.params, details));
+    this.serverMessage = message;
+    this.reason = extra.reason;
+    this.params = extra.params;
   }
 
-  /** Field-level messages keyed by field path, for forms. */
+  /** Field-level messages keyed by field path, for forms, in the reader's language where known. */
   get fieldErrors(): Record<string, string> {
     const out: Record<string, string> = {};
     if (Array.isArray(this.details)) {
-      for (const d of this.details as { path?: string; message?: string }[]) {
-        if (d.path && d.message && !out[d.path]) out[d.path] = d.message;
+      for (const d of this.details as FieldDetail[]) {
+        const message = d?.path ? localizedFieldMessage(d) : undefined;
+        if (d.path && message && !out[d.path]) out[d.path] = message;
       }
     }
     return out;
@@ -77,7 +131,7 @@ async function requestEnvelope<T, M>(method: Method, url: string, body?: unknown
       ...init,
     });
   } catch {
-    throw new ApiRequestError(0, 'network_error', 'Could not reach Seepwise. Check your connection and try again.');
+    throw new ApiRequestError(0, 'network_error', i18n.t(($) => $.apiErrors.network));
   }
   if (res.status === 204) return { data: undefined as T };
   const text = await res.text();
@@ -96,7 +150,7 @@ async function requestEnvelope<T, M>(method: Method, url: string, body?: unknown
       await refreshCsrfToken();
       if (csrfToken) return requestEnvelope<T, M>(method, url, body, init, true);
     }
-    throw new ApiRequestError(res.status, err?.code ?? 'http_error', err?.message ?? `Request failed (${res.status}).`, err?.details);
+    throw new ApiRequestError(res.status, err?.code ?? 'http_error', err?.message ?? i18n.t(($) => $.apiErrors.http, { status: res.status }), err?.details, { reason: err?.reason, params: err?.params });
   }
   return json as ApiEnvelope<T, M>;
 }

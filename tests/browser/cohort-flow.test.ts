@@ -370,17 +370,20 @@ describe('cohort flow in the browser', () => {
     await prefs.getByLabel('Units').selectOption('us');
     await prefs.getByLabel('Language').selectOption('es');
     await prefs.getByRole('button', { name: 'Save changes' }).click();
-    await prefs.getByText('Saved.').waitFor();
+    // The account's language takes over the screens at once (src/i18n): the page turns Spanish.
+    await page.getByRole('heading', { name: 'Cuenta', level: 1 }).waitFor();
+    await page.getByRole('form', { name: 'Perfil y preferencias' }).getByText('Guardado.').waitFor();
     const [row] = (await t.ds.query(`SELECT unit_system, language FROM users WHERE role = 'admin' ORDER BY created_at DESC LIMIT 1`)) as { unit_system: string; language: string }[];
     expect(row).toEqual({ unit_system: 'us', language: 'es' });
 
-    const pw = page.getByRole('form', { name: 'Change password' });
-    await pw.getByLabel('Current password').fill('wrong-password-here');
-    await pw.getByLabel('New password', { exact: true }).fill('new-melon-basin-88');
-    await pw.getByLabel('Repeat the new password').fill('new-melon-basin-88');
-    await pw.getByRole('button', { name: 'Change password' }).click();
-    await pw.getByText('The current password is not right.').waitFor();
-    await expect(pw.getByLabel('Current password').getAttribute('aria-invalid')).resolves.toBe('true');
+    const pw = page.getByRole('form', { name: 'Cambiar la contraseña' });
+    await pw.getByLabel('Contraseña actual').fill('wrong-password-here');
+    await pw.getByLabel('Contraseña nueva', { exact: true }).fill('new-melon-basin-88');
+    await pw.getByLabel('Repite la contraseña nueva').fill('new-melon-basin-88');
+    await pw.getByRole('button', { name: 'Cambiar la contraseña' }).click();
+    // The server's field refusal (reason current_password_wrong) in the account's language.
+    await pw.getByText('La contraseña actual no es correcta.').waitFor();
+    await expect(pw.getByLabel('Contraseña actual').getAttribute('aria-invalid')).resolves.toBe('true');
     await env.screenshot('account-1280');
     await at360('account');
     expect(env.pageErrors).toEqual([]);

@@ -22,6 +22,33 @@ export interface BrowserEnv {
   close: () => Promise<void>;
 }
 
+const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
+
+/**
+ * Another browser (its own profile: no cookies, no storage) on the same test app, e.g. one whose
+ * language is Spanish (`locale: 'es-ES'` sets navigator.languages and Accept-Language).
+ */
+export async function openOtherBrowser(opts: { locale?: string; viewport?: { width: number; height: number } } = {}): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'seepwise-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    viewport: opts.viewport ?? { width: 1280, height: 800 },
+    locale: opts.locale,
+    args: CHROMIUM_ARGS,
+  });
+  context.setDefaultTimeout(60_000);
+  const page = context.pages()[0] ?? (await context.newPage());
+  return {
+    context,
+    page,
+    async close() {
+      await context.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
 /** A test app on a loopback port and a fresh headless Chromium profile pointed at it. */
 export async function startBrowserEnv(opts: { viewport?: { width: number; height: number } } = {}): Promise<BrowserEnv> {
   const t = await startTestApp({ client: builtClient() });
@@ -31,7 +58,7 @@ export async function startBrowserEnv(opts: { viewport?: { width: number; height
     executablePath: CHROMIUM,
     headless: true,
     viewport: opts.viewport ?? { width: 1280, height: 800 },
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+    args: CHROMIUM_ARGS,
   });
   const page = context.pages()[0] ?? (await context.newPage());
   // Generous waits: CI machines here are small and sometimes busy.

@@ -6,7 +6,8 @@
 import { compile, type TopLevelSpec } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
 import { analyseCohort, type BlockAggregate, type CohortTrialAggregate, type ProgressAggregate } from '@shared/analysis/cohort-effects';
-import { cohortCharts, cohortProgressSpec, forestPlotSpec, POOLED_ROW, PREDICTION_ROW, trialLabels } from '@shared/charts/cohort-charts';
+import { cohortCharts, cohortProgressSpec, forestPlotSpec, POOLED_ROW, PREDICTION_ROW, trialLabels, weekLabel } from '@shared/charts/cohort-charts';
+import { translator } from '@shared/i18n/translate';
 import type { CohortResults } from '@shared/schemas/cohort-results';
 import { KG_PER_POUND, MM_PER_INCH } from '@shared/units';
 
@@ -230,6 +231,63 @@ describe('every cohort chart', () => {
     const specs = [
       ...cohortCharts(r, { units: 'metric', width: 600 }).map((c) => c.spec),
       forestPlotSpec(r, 'waterLogRatio', { units: 'us', width: 'container', compact: true })!,
+    ];
+    for (const spec of specs) compile(spec as unknown as TopLevelSpec, { logger });
+    expect(warnings).toEqual([]);
+  });
+});
+
+describe('cohort charts in Spanish', () => {
+  // Same results, two languages: every number in the spec is identical, only the words change.
+  const numbersOf = (spec: unknown) => JSON.stringify(spec).match(/-?\d+(?:\.\d+)?(?:e-?\d+)?/g);
+  const en = translator('en');
+  const es = translator('es');
+
+  it('translates titles, rows and legends and keeps every number', () => {
+    const r = cohort();
+    const specEn = forestPlotSpec(r, 'waterLogRatio', { units: 'metric', width: 600, t: en })!;
+    const specEs = forestPlotSpec(r, 'waterLogRatio', { units: 'metric', width: 600, t: es })!;
+    expect(numbersOf(specEs)).toEqual(numbersOf(specEn));
+    const y = layers(specEs).find((l) => l.mark.type === 'point')!.encoding.y as { scale: { domain: string[] } };
+    expect(y.scale.domain.slice(-2)).toEqual(['Estimación conjunta', 'Intervalo de predicción']);
+    expect(y.scale.domain[0]).toMatch(/^Grower \w+ · (Tomate|Calabaza \/ calabacín|Pimiento)/);
+    expect((layers(specEs).find((l) => l.mark.type === 'point')!.encoding.x as { title: string[] }).title).toEqual([
+      'Agua ahorrada por las ollas, % del riego en superficie',
+      '← las ollas usaron más · las ollas usaron menos →',
+    ]);
+    expect(JSON.stringify(specEs)).not.toMatch(/Pooled estimate|quality flag|Weight/);
+    expect(cohortCharts(r, { units: 'metric', width: 600, t: es }).map((c) => c.title)).toEqual([
+      'Agua ahorrada en cada ensayo y en conjunto',
+      'Cambio en la eficiencia en el uso del agua (EUA) en cada ensayo y en conjunto',
+      'Diferencia de cosecha por planta en cada ensayo y en conjunto',
+      'Agua aplicada durante la temporada, todos los huertos',
+    ]);
+  });
+
+  it('labels weeks with Spanish month abbreviations and translated treatment names, same values', () => {
+    const r = cohort();
+    const specEn = cohortProgressSpec(r, { units: 'metric', width: 600, t: en })!;
+    const specEs = cohortProgressSpec(r, { units: 'metric', width: 600, t: es })!;
+    expect(numbersOf(specEs)).toEqual(numbersOf(specEn));
+    const line = (specEs.layer as Layer[])[0]!;
+    expect((line.data.values as { weekLabel: string }[]).map((v) => v.weekLabel)).toContain('1 jun');
+    expect((line.data.values as { treatmentName: string }[]).some((v) => v.treatmentName === 'superficie')).toBe(true);
+    expect(weekLabel('2026-12-28', es)).toBe('28 dic');
+    expect(weekLabel('2026-12-28')).toBe('28 Dec');
+  });
+
+  it('compiles in Spanish with Vega-Lite without a warning', () => {
+    const warnings: unknown[] = [];
+    const logger = {
+      level: () => logger,
+      error: (...a: unknown[]) => (warnings.push(a), logger),
+      warn: (...a: unknown[]) => (warnings.push(a), logger),
+      info: () => logger,
+      debug: () => logger,
+    };
+    const specs = [
+      ...cohortCharts(cohort(), { units: 'metric', width: 600, t: es }).map((c) => c.spec),
+      forestPlotSpec(cohort(), 'waterLogRatio', { units: 'us', width: 'container', compact: true, t: es })!,
     ];
     for (const spec of specs) compile(spec as unknown as TopLevelSpec, { logger });
     expect(warnings).toEqual([]);

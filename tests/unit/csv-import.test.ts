@@ -69,10 +69,16 @@ describe('normaliseRows', () => {
       { ...base, units: {} },
     );
     expect(errors).toEqual([
-      { line: 2, column: 'volume', reason: '"lots" is not a number.' },
-      { line: 3, column: 'date', reason: '"2027-06-31 07:00" is not a date and time in the chosen format.' },
-      { line: 3, column: 'fertiliser', reason: '"maybe" is not yes or no.' },
-      { line: 4, column: '', reason: 'This row has 6 fields; the header has 5.' },
+      { line: 2, column: 'volume', reason: '"lots" is not a number.', code: 'notNumber', params: { value: 'lots', field: 'volumeL' } },
+      {
+        line: 3,
+        column: 'date',
+        reason: '"2027-06-31 07:00" is not a date and time in the chosen format.',
+        code: 'notDateTime',
+        params: { value: '2027-06-31 07:00', field: 'occurredAt' },
+      },
+      { line: 3, column: 'fertiliser', reason: '"maybe" is not yes or no.', code: 'notBoolean', params: { value: 'maybe', field: 'fertiliser' } },
+      { line: 4, column: '', reason: 'This row has 6 fields; the header has 5.', code: 'fieldCount', params: { count: 6, expected: 5 } },
     ]);
     expect(records).toHaveLength(1);
     expect(records[0]!.volumeL).toBe(2.5);
@@ -81,5 +87,6 @@ describe('normaliseRows', () => {
   it('says which required field has no column', () => {
     const { errors } = normaliseRows([['x']], { kind: 'water-events', mapping: {}, units: {}, dateFormat: 'iso', offsetMinutes: 0, headers: ['x'] });
     expect(errors.map((e) => e.reason)).toContain('No column is mapped to "Volume", which is required.');
+    expect(errors).toContainEqual(expect.objectContaining({ code: 'missingColumn', params: { field: 'volumeL' } }));
   });
 });

@@ -1,5 +1,7 @@
 /**
- * The translation files (src/locales/<lang>/<namespace>.json, loaded by src/i18n): Spanish must
+ * The translation files (src/locales/<lang>/<namespace>.json, loaded by src/i18n, and
+ * shared/locales/<lang>/<namespace>.json, read by shared/i18n/translate.ts for charts, reports and
+ * export dictionaries on both client and server): Spanish must
  * carry every English string and nothing else, with the same {{placeholders}}, and the plural forms
  * each language needs. The plural categories are read from the platform's own CLDR data
  * (Intl.PluralRules, the same rules i18next uses), not from a list of ours: English has "one" and
@@ -9,7 +11,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const ROOT = path.resolve(__dirname, '../../src/locales');
+const ROOTS = { src: path.resolve(__dirname, '../../src/locales'), shared: path.resolve(__dirname, '../../shared/locales') };
 const LANGS = ['en', 'es'] as const;
 const PLURAL = /_(zero|one|two|few|many|other)$/;
 
@@ -25,17 +27,17 @@ function flatten(tree: Tree, prefix = ''): Map<string, string> {
   return out;
 }
 
-const read = (lang: string, file: string) => flatten(JSON.parse(fs.readFileSync(path.join(ROOT, lang, file), 'utf8')) as Tree);
-const placeholders = (s: string) => [...s.matchAll(/\{\{\s*([\w.]+)(?:\s*,[^}]*)?\s*\}\}/g)].map((m) => m[1]).sort();
+const placeholders = (s: string) => [...s.matchAll(/\{\{\s*([\w.]+)(?:\s*,[^}]*)?\s*\}\}/g)].map((m) => m[1]!).sort();
 /** Keys with the plural suffix taken off, so "pots_one"/"pots_other" count as "pots". */
 const bases = (keys: Iterable<string>) => new Set([...keys].map((k) => k.replace(PLURAL, '')));
 
-const namespaces = fs.readdirSync(path.join(ROOT, 'en')).filter((f) => f.endsWith('.json'));
+describe.each(Object.entries(ROOTS))('translation files in %s/locales', (root, ROOT) => {
+  const read = (lang: string, file: string) => flatten(JSON.parse(fs.readFileSync(path.join(ROOT, lang, file), 'utf8')) as Tree);
+  const namespaces = fs.readdirSync(path.join(ROOT, 'en')).filter((f) => f.endsWith('.json'));
 
-describe('translation files', () => {
   it('has the same namespaces in every language', () => {
     for (const lang of LANGS) expect(fs.readdirSync(path.join(ROOT, lang)).filter((f) => f.endsWith('.json')).sort()).toEqual([...namespaces].sort());
-    expect(namespaces).toContain('common.json');
+    expect(namespaces).toContain(root === 'src' ? 'common.json' : 'charts.json');
   });
 
   it('reads the plural categories from CLDR (Intl.PluralRules)', () => {

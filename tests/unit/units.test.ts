@@ -14,11 +14,10 @@ import {
   M_PER_FOOT,
   MM_PER_INCH,
   type Quantity,
-  quantitySchema,
   toDisplay,
   unitLabel,
-  unitSystemSchema,
 } from '@shared/units';
+import { quantitySchema, unitSystemSchema } from '@shared/schemas/units';
 
 describe('exact definitions', () => {
   test.each([

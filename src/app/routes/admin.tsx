@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { NavLink, useSearchParams } from 'react-router-dom';
 import { Card } from '@/components/ui/card';
 import { paths } from '@/config/paths';
@@ -9,34 +10,36 @@ import { usersParamsFrom } from '@/features/admin/api/get-users';
 import { cn } from '@/lib/utils';
 
 function AdminTabs() {
+  const { t } = useTranslation('admin');
   const tab = ({ isActive }: { isActive: boolean }) =>
     cn('inline-flex min-h-11 items-center rounded-lg px-4 text-sm font-medium', isActive ? 'bg-terracotta-50 text-terracotta-800' : 'text-ink-muted hover:bg-sand-100 hover:text-ink');
   return (
-    <nav aria-label="Admin sections" className="flex gap-1 border-b border-sand-200 pb-2">
+    <nav aria-label={t(($) => $.sections)} className="flex gap-1 border-b border-sand-200 pb-2">
       <NavLink to={paths.admin} end className={tab}>
-        Accounts and health
+        {t(($) => $.tabAccounts)}
       </NavLink>
       <NavLink to={paths.adminOutbox} className={tab}>
-        Outbox
+        {t(($) => $.tabOutbox)}
       </NavLink>
     </nav>
   );
 }
 
 export function AdminPage() {
+  const { t } = useTranslation('admin');
   const user = useCurrentUser();
   const [search, setSearch] = useSearchParams();
   const params = usersParamsFrom(search);
   return (
     <div className="space-y-6">
       <div>
-        <h1>Admin</h1>
-        <p className="mt-1 text-ink-muted">Accounts, roles and the state of the server.</p>
+        <h1>{t(($) => $.title)}</h1>
+        <p className="mt-1 text-ink-muted">{t(($) => $.intro)}</p>
       </div>
       <AdminTabs />
       <HealthCard />
       <Card role="region" aria-labelledby="accounts-heading" className="space-y-4">
-        <h2 id="accounts-heading">Accounts</h2>
+        <h2 id="accounts-heading">{t(($) => $.accounts)}</h2>
         <UsersTable
           params={params}
           currentUserId={user?.id ?? ''}
@@ -53,12 +56,13 @@ export function AdminPage() {
 }
 
 export function AdminOutboxPage() {
+  const { t } = useTranslation('admin');
   return (
     <div className="space-y-6">
       <div>
-        <h1>Outbox</h1>
+        <h1>{t(($) => $.outbox.title)}</h1>
         <p className="mt-1 max-w-2xl text-ink-muted">
-          E-mails the development mail sink caught instead of sending: confirmations, password resets and cohort invitations. Shown as plain text.
+          {t(($) => $.outbox.intro)}
         </p>
       </div>
       <AdminTabs />

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
@@ -18,14 +19,16 @@ function joinUrl(code: string) {
 }
 
 function BackLink() {
+  const { t } = useTranslation('cohorts');
   return (
     <Link to={paths.cohorts} className="inline-flex min-h-10 items-center text-sm font-medium text-terracotta-700 underline">
-      ← All cohorts
+      {t(($) => $.cohort.back)}
     </Link>
   );
 }
 
 export function CohortPage() {
+  const { t } = useTranslation('cohorts');
   const { cohortId = '' } = useParams();
   const cohort = useCohort(cohortId);
   const navigate = useNavigate();
@@ -33,7 +36,7 @@ export function CohortPage() {
   if (cohort.isPending) {
     return (
       <p role="status" className="text-ink-muted">
-        Loading the cohort…
+        {t(($) => $.cohort.loading)}
       </p>
     );
   }
@@ -42,9 +45,9 @@ export function CohortPage() {
     return (
       <div className="space-y-4">
         <BackLink />
-        <h1>{notFound ? 'Cohort not found' : 'Could not load the cohort'}</h1>
+        <h1>{notFound ? t(($) => $.cohort.notFound) : t(($) => $.cohort.loadFailed)}</h1>
         <Alert tone="error">
-          {notFound ? 'No cohort with this address has you as its lead or a member. If you left it or were removed, you need a new code or invitation.' : cohort.error.message}
+          {notFound ? t(($) => $.cohort.notFoundBody) : cohort.error.message}
         </Alert>
       </div>
     );
@@ -54,9 +57,9 @@ export function CohortPage() {
   const isLead = c.myRole === 'lead';
   const full = c.capacity !== null && c.memberCount >= c.capacity;
   const inviteBlocked = c.closed
-    ? 'The cohort is closed to new members: untick “Closed to new members” in the settings below before inviting anyone.'
+    ? t(($) => $.cohort.inviteClosed)
     : full
-      ? 'The cohort is full: raise the member limit in the settings below before inviting anyone.'
+      ? t(($) => $.cohort.inviteFull)
       : undefined;
 
   return (
@@ -74,11 +77,11 @@ export function CohortPage() {
             <JoinCodeCard cohort={c} joinUrl={joinUrl} />
             <Card role="region" aria-labelledby="invite-heading" className="space-y-4">
               <div>
-                <h2 id="invite-heading">Invite by e-mail</h2>
-                <p className="mt-1 text-sm text-ink-muted">Sends a link that works once, for 14 days, for that address only.</p>
+                <h2 id="invite-heading">{t(($) => $.cohort.invite)}</h2>
+                <p className="mt-1 text-sm text-ink-muted">{t(($) => $.cohort.inviteIntro)}</p>
               </div>
               <InviteForm cohortId={c.id} disabledReason={inviteBlocked} />
-              <h3 className="pt-2 text-base">Invitations sent</h3>
+              <h3 className="pt-2 text-base">{t(($) => $.cohort.invitationsSent)}</h3>
               <InvitationsList cohortId={c.id} />
             </Card>
           </div>
@@ -86,13 +89,13 @@ export function CohortPage() {
 
         <div className="space-y-6 lg:order-1">
           <Card role="region" aria-labelledby="members-heading" className="space-y-4">
-            <h2 id="members-heading">Members</h2>
+            <h2 id="members-heading">{t(($) => $.cohort.members)}</h2>
             <MembersList cohortId={c.id} canRemove={isLead} />
           </Card>
 
           {isLead ? (
             <Card role="region" aria-labelledby="settings-heading" className="space-y-4">
-              <h2 id="settings-heading">Settings</h2>
+              <h2 id="settings-heading">{t(($) => $.cohort.settings)}</h2>
               <CohortSettingsForm key={c.id} cohort={c} />
             </Card>
           ) : null}

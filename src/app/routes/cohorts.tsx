@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useNavigate } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -11,6 +12,7 @@ import { CreateCohortForm } from '@/features/cohorts/components/create-cohort-fo
 import { JoinCohortForm } from '@/features/cohorts/components/join-cohort-form';
 
 export function CohortsPage() {
+  const { t } = useTranslation('cohorts');
   const user = useCurrentUser();
   const cohorts = useCohorts();
   const navigate = useNavigate();
@@ -21,14 +23,14 @@ export function CohortsPage() {
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <h1>Cohorts</h1>
+          <h1>{t(($) => $.page.title)}</h1>
           <p className="mt-1 max-w-2xl text-ink-muted">
-            A cohort pools many growers’ trials into one answer. Members appear by pseudonym only: no names, no e-mail addresses.
+            {t(($) => $.page.intro)}
           </p>
         </div>
         {canLead && !creating ? (
           <Button id="new-cohort-button" size="lg" onClick={() => setCreating(true)}>
-            New cohort
+            {t(($) => $.page.new)}
           </Button>
         ) : null}
       </div>
@@ -36,8 +38,8 @@ export function CohortsPage() {
       {canLead && creating ? (
         <Card id="new-cohort" role="region" aria-labelledby="new-cohort-heading" className="max-w-3xl space-y-4">
           <div>
-            <h2 id="new-cohort-heading">New cohort</h2>
-            <p className="mt-1 text-sm text-ink-muted">You will lead it: you get a join code to hand out and can invite people by e-mail.</p>
+            <h2 id="new-cohort-heading">{t(($) => $.page.new)}</h2>
+            <p className="mt-1 text-sm text-ink-muted">{t(($) => $.page.newIntro)}</p>
           </div>
           <CreateCohortForm onCreated={(c) => navigate(paths.cohort(c.id))} onCancel={() => {
               setCreating(false);
@@ -50,18 +52,18 @@ export function CohortsPage() {
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <section aria-labelledby="my-cohorts-heading" className="space-y-3">
-          <h2 id="my-cohorts-heading">Your cohorts</h2>
+          <h2 id="my-cohorts-heading">{t(($) => $.page.mine)}</h2>
           {cohorts.isPending ? (
             <p role="status" className="text-ink-muted">
-              Loading your cohorts…
+              {t(($) => $.page.loading)}
             </p>
           ) : cohorts.isError ? (
-            <Alert tone="error">Could not load your cohorts: {cohorts.error.message}</Alert>
+            <Alert tone="error">{t(($) => $.page.loadFailed, { message: cohorts.error.message })}</Alert>
           ) : cohorts.data.length === 0 ? (
             <Card className="text-ink-muted">
-              <p>You are not in any cohort yet.</p>
+              <p>{t(($) => $.page.none)}</p>
               <p className="mt-1">
-                {canLead ? 'Start one with “New cohort”, or join another lead’s cohort with a code.' : 'Ask your educator or garden network for a join code, then enter it under “Join with a code”.'}
+                {canLead ? t(($) => $.page.noneLead) : t(($) => $.page.noneMember)}
               </p>
             </Card>
           ) : (
@@ -71,8 +73,8 @@ export function CohortsPage() {
 
         <Card role="region" aria-labelledby="join-heading" className="space-y-4 self-start">
           <div>
-            <h2 id="join-heading">Join with a code</h2>
-            <p className="mt-1 text-sm text-ink-muted">Got a code from a lead? Enter it here.</p>
+            <h2 id="join-heading">{t(($) => $.page.join)}</h2>
+            <p className="mt-1 text-sm text-ink-muted">{t(($) => $.page.joinIntro)}</p>
           </div>
           <JoinCohortForm onJoined={(c) => navigate(paths.cohort(c.id))} />
         </Card>

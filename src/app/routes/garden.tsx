@@ -1,6 +1,6 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useNavigate, useParams } from 'react-router-dom';
-import { soilTextureLabels } from '@shared/schemas/gardens';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -13,12 +13,15 @@ import { useTrials } from '@/features/trials/api/get-trials';
 import { useCreateTrial } from '@/features/trials/api/trial-mutations';
 import { TrialCards } from '@/features/trials/components/trial-cards';
 import { TrialForm } from '@/features/trials/components/trial-form';
+import { formatNumber } from '@/lib/format';
 import { useUnits } from '@/lib/units';
 
 export function GardenPage() {
   const { gardenId = '' } = useParams();
   const navigate = useNavigate();
   const units = useUnits();
+  const { t } = useTranslation('gardens');
+  const { t: tc } = useTranslation('common');
   const garden = useGarden(gardenId);
   const trials = useTrials(gardenId);
   const update = useUpdateGarden(gardenId);
@@ -27,7 +30,7 @@ export function GardenPage() {
   const [editing, setEditing] = useState(false);
   const [adding, setAdding] = useState(false);
   const [confirmDelete, setConfirmDelete] = useState(false);
-  if (garden.isPending) return <p role="status">Loading the garden…</p>;
+  if (garden.isPending) return <p role="status">{t(($) => $.page.loading)}</p>;
   if (garden.isError) return <Alert tone="error">{garden.error.message}</Alert>;
   const g = garden.data;
   return (
@@ -36,49 +39,49 @@ export function GardenPage() {
         <div>
           <h1>{g.name}</h1>
           <p className="text-ink-muted">
-            {g.latitudeDeg.toFixed(1)}°, {g.longitudeDeg.toFixed(1)}° · {units.fmt(g.elevationM, 'length', 0)} · {soilTextureLabels[g.soilTexture]}
-            {g.coastal ? ' · coastal' : ''}
+            {formatNumber(g.latitudeDeg, 1, 1)}°, {formatNumber(g.longitudeDeg, 1, 1)}° · {units.fmt(g.elevationM, 'length', 0)} · {t(($) => $.soil[g.soilTexture])}
+            {g.coastal ? ` · ${t(($) => $.page.coastal)}` : ''}
           </p>
         </div>
         <div className="ml-auto flex gap-2">
           <Button variant="secondary" onClick={() => setEditing((v) => !v)}>
-            {editing ? 'Cancel' : 'Edit garden'}
+            {editing ? tc(($) => $.actions.cancel) : t(($) => $.page.edit)}
           </Button>
           <Button variant="ghost" onClick={() => setConfirmDelete(true)}>
-            Delete
+            {tc(($) => $.actions.delete)}
           </Button>
         </div>
       </div>
-      {editing ? <GardenForm garden={g} submitLabel="Save garden" onSubmit={(input) => update.mutateAsync(input).then(() => setEditing(false))} /> : null}
+      {editing ? <GardenForm garden={g} submitLabel={t(($) => $.page.save)} onSubmit={(input) => update.mutateAsync(input).then(() => setEditing(false))} /> : null}
       <section aria-labelledby="trials-heading" className="space-y-3">
         <div className="flex items-center gap-3">
-          <h2 id="trials-heading">Trials</h2>
+          <h2 id="trials-heading">{t(($) => $.page.trials)}</h2>
           <Button size="sm" onClick={() => setAdding((v) => !v)}>
-            {adding ? 'Cancel' : 'New trial'}
+            {adding ? tc(($) => $.actions.cancel) : t(($) => $.page.newTrial)}
           </Button>
         </div>
         {adding ? (
           <div className="rounded-card border border-sand-200 bg-white p-4">
             <TrialForm
-              submitLabel="Create trial"
-              onSubmit={(input) => createTrial.mutateAsync(input).then((t) => navigate(paths.trial(t.id)))}
+              submitLabel={t(($) => $.page.createTrial)}
+              onSubmit={(input) => createTrial.mutateAsync(input).then((created) => navigate(paths.trial(created.id)))}
             />
           </div>
         ) : null}
-        {trials.isPending ? <p role="status">Loading trials…</p> : <TrialCards trials={trials.data ?? []} trialPath={paths.trial} roundPath={paths.round} />}
+        {trials.isPending ? <p role="status">{t(($) => $.page.loadingTrials)}</p> : <TrialCards trials={trials.data ?? []} trialPath={paths.trial} roundPath={paths.round} />}
       </section>
       <WeatherPanel gardenId={g.id} />
       <ConfirmDialog
         open={confirmDelete}
-        title={`Delete ${g.name}?`}
-        confirmLabel="Delete garden and its trials"
+        title={t(($) => $.page.deleteTitle, { name: g.name })}
+        confirmLabel={t(($) => $.page.deleteConfirm)}
         tone="danger"
         pending={remove.isPending}
         error={remove.error?.message ?? null}
         onCancel={() => setConfirmDelete(false)}
         onConfirm={() => remove.mutate(g.id, { onSuccess: () => navigate(paths.home) })}
       >
-        Every trial, plot, record and weather day of this garden is deleted. This cannot be undone.
+        {t(($) => $.page.deleteBody)}
       </ConfirmDialog>
     </div>
   );

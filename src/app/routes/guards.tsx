@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Navigate, Outlet, useLocation, useSearchParams } from 'react-router-dom';
 import type { Account } from '@shared/schemas/auth';
 import { AppShell } from '@/components/layout/app-shell';
@@ -7,11 +8,24 @@ import { useSession } from '@/features/auth/api/get-session';
 import { safeNext } from '@/lib/safe-next';
 import { SESSION_EXPIRED_FLAG } from '../query-client';
 
-function Loading() {
+/** Also the router's fallback while the first page's data loads. */
+export function Loading() {
+  const { t } = useTranslation();
   return (
     <p role="status" className="p-8 text-ink-muted">
-      Loading…
+      {t(($) => $.loading)}
     </p>
+  );
+}
+
+function NotAvailable({ roles }: { roles: Account['role'][] }) {
+  const { t, i18n } = useTranslation();
+  const list = new Intl.ListFormat(i18n.resolvedLanguage, { type: 'disjunction' }).format(roles.map((r) => t(($) => $.roles[r])));
+  return (
+    <>
+      <h1>{t(($) => $.notAvailable.title)}</h1>
+      <p className="mt-2 text-ink-muted">{t(($) => $.notAvailable.body, { roles: list })}</p>
+    </>
   );
 }
 
@@ -30,8 +44,7 @@ export function RequireAuth({ roles }: { roles?: Account['role'][] }) {
   if (roles && !roles.includes(user.role)) {
     return (
       <AppShell user={user} onSignOut={() => signOut.mutateAsync().then(() => undefined)}>
-        <h1>Not available</h1>
-        <p className="mt-2 text-ink-muted">This page is for {roles.join(' or ')} accounts.</p>
+        <NotAvailable roles={roles} />
       </AppShell>
     );
   }

@@ -1,7 +1,6 @@
-import { useCurrentUser } from '@/features/auth/api/get-session';
 import { GuidesPage } from '@/features/guides/components/guides-page';
 
+/** The guides in the screen's language (the account's setting once signed in, see src/i18n). */
 export function GuidesRoute() {
-  const user = useCurrentUser();
-  return <GuidesPage lang={user?.language ?? 'en'} />;
+  return <GuidesPage />;
 }

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
@@ -13,26 +14,28 @@ import { TrialCards } from '@/features/trials/components/trial-cards';
 const HOME_COHORT_LIMIT = 5;
 
 function YourCohortsCard() {
+  const { t } = useTranslation('home');
+  const { t: tc } = useTranslation();
   const cohorts = useCohorts();
   return (
     <Card role="region" aria-labelledby="home-cohorts-heading" className="space-y-3">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="home-cohorts-heading">Your cohorts</h2>
+        <h2 id="home-cohorts-heading">{t(($) => $.cohorts.title)}</h2>
         <Link to={paths.cohorts} className="inline-flex min-h-10 items-center text-sm font-medium text-terracotta-700 underline">
-          {cohorts.data && cohorts.data.length > HOME_COHORT_LIMIT ? `All ${cohorts.data.length} cohorts` : 'Cohorts page'}
+          {cohorts.data && cohorts.data.length > HOME_COHORT_LIMIT ? t(($) => $.cohorts.all, { count: cohorts.data.length }) : t(($) => $.cohorts.page)}
         </Link>
       </div>
       {cohorts.isPending ? (
         <p role="status" className="text-ink-muted">
-          Loading…
+          {tc(($) => $.loading)}
         </p>
       ) : cohorts.isError ? (
-        <Alert tone="error">Could not load your cohorts: {cohorts.error.message}</Alert>
+        <Alert tone="error">{t(($) => $.cohorts.loadFailed, { message: cohorts.error.message })}</Alert>
       ) : cohorts.data.length === 0 ? (
         <p className="text-ink-muted">
-          None yet. Got a code from an educator or garden network?{' '}
+          {t(($) => $.cohorts.none)}{' '}
           <Link to={paths.joinCohort} className="font-medium text-terracotta-700 underline">
-            Join with a code
+            {t(($) => $.cohorts.join)}
           </Link>
           .
         </p>
@@ -44,25 +47,27 @@ function YourCohortsCard() {
 }
 
 function GardensAndTrials() {
+  const { t } = useTranslation('home');
+  const { t: tc } = useTranslation();
   const gardens = useGardens();
   const trials = useTrials();
-  const active = (trials.data ?? []).filter((t) => t.status !== 'closed');
-  const closed = (trials.data ?? []).filter((t) => t.status === 'closed');
+  const active = (trials.data ?? []).filter((trial) => trial.status !== 'closed');
+  const closed = (trials.data ?? []).filter((trial) => trial.status === 'closed');
   return (
     <section aria-labelledby="home-trials-heading" className="space-y-4">
       <div className="flex flex-wrap items-center gap-3">
-        <h2 id="home-trials-heading">Your trials</h2>
+        <h2 id="home-trials-heading">{t(($) => $.trials.title)}</h2>
         <Link to={paths.newGarden} className="ml-auto inline-flex min-h-10 items-center rounded-lg border border-sand-300 bg-white px-3 text-sm font-medium hover:bg-sand-100">
-          New garden
+          {t(($) => $.trials.newGarden)}
         </Link>
       </div>
-      {trials.isPending || gardens.isPending ? <p role="status">Loading…</p> : null}
+      {trials.isPending || gardens.isPending ? <p role="status">{tc(($) => $.loading)}</p> : null}
       {gardens.data && gardens.data.length === 0 ? (
         <Card>
           <p>
-            Start with a garden: its rough location and soil feed the water-need sums. Then add a trial with matched pairs of plots.{' '}
+            {t(($) => $.trials.start)}{' '}
             <Link to={paths.newGarden} className="font-medium text-terracotta-700 underline">
-              Create your first garden
+              {t(($) => $.trials.firstGarden)}
             </Link>
           </p>
         </Card>
@@ -70,7 +75,7 @@ function GardensAndTrials() {
       {active.length ? <TrialCards trials={active} trialPath={paths.trial} roundPath={paths.round} /> : null}
       {gardens.data?.length ? (
         <p className="text-sm text-ink-muted">
-          Gardens:{' '}
+          {t(($) => $.trials.gardens)}{' '}
           {gardens.data.map((g, i) => (
             <span key={g.id}>
               {i ? ' · ' : ''}
@@ -84,7 +89,7 @@ function GardensAndTrials() {
       ) : null}
       {closed.length ? (
         <details>
-          <summary className="cursor-pointer font-medium">Closed trials ({closed.length})</summary>
+          <summary className="cursor-pointer font-medium">{t(($) => $.trials.closed, { n: closed.length })}</summary>
           <div className="mt-3">
             <TrialCards trials={closed} trialPath={paths.trial} roundPath={paths.round} />
           </div>
@@ -95,21 +100,21 @@ function GardensAndTrials() {
 }
 
 export function HomePage() {
+  const { t } = useTranslation('home');
   const user = useCurrentUser();
   return (
     <div className="space-y-6">
       <div>
-        <h1>Hello, {user?.displayName}</h1>
-        <p className="mt-1 text-ink-muted">Your gardens and trials at a glance, and what needs doing today.</p>
+        <h1>{t(($) => $.hello, { name: user?.displayName ?? '' })}</h1>
+        <p className="mt-1 text-ink-muted">{t(($) => $.intro)}</p>
       </div>
       <FrostWarnings />
       <GardensAndTrials />
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>
-          <h2>Getting started</h2>
+          <h2>{t(($) => $.gettingStarted.title)}</h2>
           <p className="mt-2 text-ink-muted">
-            Set up two matched beds with the same crop and planting date: one watered through buried clay pots, its twin at the surface. Log every refill and
-            every can of water; weigh every pick. Seepwise does the sums and tells you how sure the answer is.
+            {t(($) => $.gettingStarted.body)}
           </p>
         </Card>
         <YourCohortsCard />

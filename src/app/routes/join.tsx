@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { PublicLayout } from '@/components/layout/public-layout';
 import { Card } from '@/components/ui/card';
@@ -12,6 +13,7 @@ import { JoinCohortForm } from '@/features/cohorts/components/join-cohort-form';
  * and signed-out visitors alike. Signing in or up comes back here through `next`.
  */
 export function JoinPage() {
+  const { t } = useTranslation('cohorts');
   const [params] = useSearchParams();
   const location = useLocation();
   const navigate = useNavigate();
@@ -31,13 +33,13 @@ export function JoinPage() {
     <JoinCohortForm defaultCode={code} onJoined={(c) => goToCohort(c.id)} />
   ) : (
     <div className="space-y-3">
-      <p>{code ? 'Sign in or create an account first; the code comes along.' : 'Sign in or create an account first, then enter the code your lead gave you.'}</p>
+      <p>{code ? t(($) => $.join.signInFirstCode) : t(($) => $.join.signInFirst)}</p>
       <div className="flex flex-col gap-2 sm:flex-row">
         <Link to={signInHref} className={buttonVariants({ size: 'lg' })}>
-          Sign in
+          {t(($) => $.join.signIn)}
         </Link>
         <Link to={signUpHref} className={buttonVariants({ variant: 'secondary', size: 'lg' })}>
-          Create an account
+          {t(($) => $.join.signUp)}
         </Link>
       </div>
     </div>
@@ -45,13 +47,13 @@ export function JoinPage() {
 
   if (!user) {
     return (
-      <PublicLayout title={token ? 'Your invitation' : 'Join a cohort'} intro={token ? undefined : 'Cohorts pool many growers’ trials into one answer. You take part under a pseudonym.'}>
+      <PublicLayout title={token ? t(($) => $.join.titleInvite) : t(($) => $.join.title)} intro={token ? undefined : t(($) => $.join.intro)}>
         {invitation ?? codeSection}
         {token ? (
           <p className="mt-6 text-sm text-ink-muted">
-            Have a join code instead?{' '}
+            {t(($) => $.join.haveCode)}{' '}
             <Link className="text-terracotta-700 underline" to={paths.joinCohort}>
-              Join with a code
+              {t(($) => $.join.withCode)}
             </Link>
           </p>
         ) : null}
@@ -61,12 +63,12 @@ export function JoinPage() {
 
   return (
     <div className="mx-auto max-w-2xl space-y-6">
-      <h1>{token ? 'Your invitation' : 'Join a cohort'}</h1>
+      <h1>{token ? t(($) => $.join.titleInvite) : t(($) => $.join.title)}</h1>
       {invitation ? <Card>{invitation}</Card> : null}
       <Card role="region" aria-labelledby="join-code-form-heading" className="space-y-4">
         <div>
-          <h2 id="join-code-form-heading">{token ? 'Or join with a code' : 'Join with a code'}</h2>
-          <p className="mt-1 text-sm text-ink-muted">Others in the cohort will see you under a pseudonym, never your name or e-mail.</p>
+          <h2 id="join-code-form-heading">{token ? t(($) => $.join.orWithCode) : t(($) => $.join.withCode)}</h2>
+          <p className="mt-1 text-sm text-ink-muted">{t(($) => $.join.pseudonymNote)}</p>
         </div>
         {codeSection}
       </Card>

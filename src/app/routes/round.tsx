@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { paths } from '@/config/paths';
@@ -8,12 +9,16 @@ export function RoundPage() {
   const { trialId = '' } = useParams();
   const trial = useTrial(trialId);
   const [params] = useSearchParams();
-  if (trial.isPending) return <p role="status">Loading…</p>;
+  const { t } = useTranslation('round');
+  if (trial.isPending) return <p role="status">{t(($) => $.page.loading)}</p>;
   if (trial.isError) return <Alert tone="error">{trial.error.message}</Alert>;
   if (trial.data.status !== 'active') {
     return (
       <Alert tone="warning">
-        This trial is {trial.data.status}: the round is for active trials. <Link className="underline" to={paths.trial(trialId)}>Back to the trial</Link>
+        {t(($) => $.page.notActive, { status: t(($) => $.page.status[trial.data.status]) })}{' '}
+        <Link className="underline" to={paths.trial(trialId)}>
+          {t(($) => $.page.backToTrial)}
+        </Link>
       </Alert>
     );
   }

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Link, useParams } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -17,21 +18,22 @@ import { PlotsPanel } from '@/features/trials/components/plots-panel';
 import { SharePanel } from '@/features/trials/components/share-panel';
 import { StatusBar } from '@/features/trials/components/status-bar';
 import { TrialForm } from '@/features/trials/components/trial-form';
-import { cropLabels } from '@shared/schemas/trials';
+import { formatDate } from '@/lib/format';
 import { cn } from '@/lib/utils';
 
 type Tab = 'results' | 'records' | 'import' | 'setup' | 'sharing' | 'history';
 
 function ExportLinks({ trialId }: { trialId: string }) {
+  const { t } = useTranslation('trials');
   const files = ['water-events', 'moisture-readings', 'harvests', 'weather-days', 'plots', 'data-dictionary'];
   return (
     <section aria-labelledby="export-heading" className="mt-6 space-y-2">
-      <h2 id="export-heading">Download as CSV</h2>
-      <p className="text-sm text-ink-muted">One row per observation, ISO 8601 dates, SI units in the column names; the data dictionary describes every column.</p>
+      <h2 id="export-heading">{t(($) => $.export.title)}</h2>
+      <p className="text-sm text-ink-muted">{t(($) => $.export.intro)}</p>
       <ul className="flex flex-wrap gap-2">
         <li>
           <a className="inline-flex min-h-10 items-center rounded-lg bg-terracotta-600 px-3 text-sm font-medium text-white hover:bg-terracotta-700" href={`/api/trials/${trialId}/report.zip`} download>
-            Report bundle (ZIP: data, charts, methods)
+            {t(($) => $.export.bundle)}
           </a>
         </li>
         {files.map((f) => (
@@ -55,16 +57,18 @@ export function TrialPage() {
   const [tab, setTab] = useState<Tab>('results');
   const [editing, setEditing] = useState(false);
   const user = useCurrentUser();
-  if (trial.isPending) return <p role="status">Loading the trial…</p>;
+  const { t } = useTranslation('trials');
+  const { t: tc } = useTranslation('common');
+  if (trial.isPending) return <p role="status">{t(($) => $.page.loading)}</p>;
   if (trial.isError) return <Alert tone="error">{trial.error.message}</Alert>;
-  const t = trial.data;
-  const owner = t.access === 'owner';
+  const tr = trial.data;
+  const owner = tr.access === 'owner';
   const tabs: { id: Tab; label: string }[] = [
-    { id: 'results', label: 'Results' },
-    { id: 'records', label: 'Records' },
-    ...(owner && t.status !== 'closed' ? ([{ id: 'import', label: 'Import' }] as const) : []),
-    { id: 'setup', label: 'Setup' },
-    ...(owner ? ([{ id: 'sharing', label: 'Sharing' }, { id: 'history', label: 'History' }] as const) : []),
+    { id: 'results', label: t(($) => $.page.tabs.results) },
+    { id: 'records', label: t(($) => $.page.tabs.records) },
+    ...(owner && tr.status !== 'closed' ? [{ id: 'import' as const, label: t(($) => $.page.tabs.import) }] : []),
+    { id: 'setup', label: t(($) => $.page.tabs.setup) },
+    ...(owner ? [{ id: 'sharing' as const, label: t(($) => $.page.tabs.sharing) }, { id: 'history' as const, label: t(($) => $.page.tabs.history) }] : []),
   ];
   return (
     <div className="space-y-5">
@@ -72,29 +76,29 @@ export function TrialPage() {
         <div>
           <p className="text-sm text-ink-muted">
             {owner ? (
-              <Link className="underline" to={paths.garden(t.gardenId)}>
-                {t.gardenName}
+              <Link className="underline" to={paths.garden(tr.gardenId)}>
+                {tr.gardenName}
               </Link>
             ) : (
-              'Shared with your cohort'
+              t(($) => $.page.sharedWithCohort)
             )}
           </p>
-          <h1>{t.title}</h1>
+          <h1>{tr.title}</h1>
           <p className="text-ink-muted">
-            {t.crop === 'other' ? t.cropName : cropLabels[t.crop]}
-            {t.variety ? ` · ${t.variety}` : ''} · planted {t.plantingDate}
-            {t.endDate ? ` · ends ${t.endDate}` : ''}
+            {tr.crop === 'other' ? tr.cropName : t(($) => $.crops[tr.crop])}
+            {tr.variety ? ` · ${tr.variety}` : ''} · {t(($) => $.page.planted, { date: formatDate(tr.plantingDate) })}
+            {tr.endDate ? ` · ${t(($) => $.page.ends, { date: formatDate(tr.endDate) })}` : ''}
           </p>
         </div>
-        {owner && t.status === 'active' ? (
-          <Link to={paths.round(t.id)} className="ml-auto inline-flex min-h-12 items-center rounded-lg bg-terracotta-600 px-5 text-lg font-medium text-white hover:bg-terracotta-700">
-            Today&apos;s round
+        {owner && tr.status === 'active' ? (
+          <Link to={paths.round(tr.id)} className="ml-auto inline-flex min-h-12 items-center rounded-lg bg-terracotta-600 px-5 text-lg font-medium text-white hover:bg-terracotta-700">
+            {t(($) => $.page.todaysRound)}
           </Link>
         ) : null}
       </div>
-      {t.question ? <p className="rounded-card border-l-4 border-terracotta-300 bg-white px-4 py-3 italic">“{t.question}”</p> : null}
-      <StatusBar trial={t} />
-      <div role="tablist" aria-label="Trial sections" className="flex flex-wrap gap-1 border-b border-sand-200">
+      {tr.question ? <p className="rounded-card border-l-4 border-terracotta-300 bg-white px-4 py-3 italic">“{tr.question}”</p> : null}
+      <StatusBar trial={tr} />
+      <div role="tablist" aria-label={t(($) => $.page.sections)} className="flex flex-wrap gap-1 border-b border-sand-200">
         {tabs.map((x) => (
           <button
             key={x.id}
@@ -113,35 +117,35 @@ export function TrialPage() {
       <div role="tabpanel" id={`panel-${tab}`} aria-labelledby={`tab-${tab}`}>
         {tab === 'results' ? (
           <div className="space-y-6">
-            {owner && t.status === 'active' ? <RefillForecastTable trialId={t.id} /> : null}
-            <ResultsTab trialId={t.id} treatments={t.treatments} />
+            {owner && tr.status === 'active' ? <RefillForecastTable trialId={tr.id} /> : null}
+            <ResultsTab trialId={tr.id} treatments={tr.treatments} />
           </div>
         ) : null}
-        {tab === 'records' ? <LogsPanel trialId={t.id} plots={plots.data ?? []} editable={owner && t.status !== 'closed'} /> : null}
-        {tab === 'import' && user ? <ImportWizard trialId={t.id} userId={user.id} /> : null}
-        {tab === 'records' ? <ExportLinks trialId={t.id} /> : null}
+        {tab === 'records' ? <LogsPanel trialId={tr.id} plots={plots.data ?? []} editable={owner && tr.status !== 'closed'} /> : null}
+        {tab === 'import' && user ? <ImportWizard trialId={tr.id} userId={user.id} /> : null}
+        {tab === 'records' ? <ExportLinks trialId={tr.id} /> : null}
         {tab === 'setup' ? (
           <div className="space-y-6">
-            <PlotsPanel trial={t} />
-            {owner && t.status !== 'closed' ? (
+            <PlotsPanel trial={tr} />
+            {owner && tr.status !== 'closed' ? (
               <section aria-labelledby="details-heading" className="space-y-3">
                 <div className="flex items-center gap-3">
-                  <h2 id="details-heading">Trial details</h2>
+                  <h2 id="details-heading">{t(($) => $.page.details)}</h2>
                   <Button variant="secondary" size="sm" onClick={() => setEditing((v) => !v)}>
-                    {editing ? 'Cancel' : 'Edit'}
+                    {editing ? tc(($) => $.actions.cancel) : tc(($) => $.actions.edit)}
                   </Button>
                 </div>
                 {editing ? (
-                  <TrialForm trial={t} submitLabel="Save changes" onSubmit={(input) => update.mutateAsync(input).then(() => setEditing(false))} />
+                  <TrialForm trial={tr} submitLabel={t(($) => $.page.saveChanges)} onSubmit={(input) => update.mutateAsync(input).then(() => setEditing(false))} />
                 ) : (
                   <dl className="grid gap-2 text-sm sm:grid-cols-2">
                     <div>
-                      <dt className="text-ink-muted">Protocol notes</dt>
-                      <dd className="whitespace-pre-wrap">{t.protocolNotes || '—'}</dd>
+                      <dt className="text-ink-muted">{t(($) => $.page.protocolNotes)}</dt>
+                      <dd className="whitespace-pre-wrap">{tr.protocolNotes || '—'}</dd>
                     </div>
                     <div>
-                      <dt className="text-ink-muted">Treatments</dt>
-                      <dd>{t.treatments.join(' vs ')}</dd>
+                      <dt className="text-ink-muted">{t(($) => $.page.treatments)}</dt>
+                      <dd>{tr.treatments.map((x) => (x === 'olla' || x === 'surface' ? t(($) => $.treatments[x]) : x)).join(t(($) => $.page.vs))}</dd>
                     </div>
                   </dl>
                 )}
@@ -149,8 +153,8 @@ export function TrialPage() {
             ) : null}
           </div>
         ) : null}
-        {tab === 'sharing' && owner ? <SharePanel trialId={t.id} cohorts={cohorts.data ?? []} /> : null}
-        {tab === 'history' && owner ? <AuditList trialId={t.id} /> : null}
+        {tab === 'sharing' && owner ? <SharePanel trialId={tr.id} cohorts={cohorts.data ?? []} /> : null}
+        {tab === 'history' && owner ? <AuditList trialId={tr.id} /> : null}
       </div>
     </div>
   );

@@ -1,5 +1,6 @@
 import { cva } from 'class-variance-authority';
 import { useId } from 'react';
+import { useTranslation } from 'react-i18next';
 import { cautions, type CautionId, type CautionSeverity, type Language } from '@shared/content/cautions';
 import { cn } from '@/lib/utils';
 
@@ -50,9 +51,16 @@ function SeverityIcon({ severity }: { severity: CautionSeverity }) {
   );
 }
 
+/** The language the screen is shown in (src/i18n), as one of the catalogue's. */
+function useUiLanguage(): Language {
+  const { i18n } = useTranslation();
+  return i18n.resolvedLanguage === 'es' ? 'es' : 'en';
+}
+
 export interface CautionNoteProps {
   /** The caution to show (an id of the shared catalogue). */
   id: CautionId;
+  /** Defaults to the screen's language; pass one only to show a caution in another language on purpose. */
   lang?: Language;
   /** Heading level that fits the surrounding outline; default 3. */
   headingLevel?: HeadingLevel;
@@ -62,7 +70,9 @@ export interface CautionNoteProps {
 }
 
 /** One caution as an accessible callout: a note landmark named by its heading. */
-export function CautionNote({ id, lang = 'en', headingLevel = 3, anchorId, className }: CautionNoteProps) {
+export function CautionNote({ id, lang: langProp, headingLevel = 3, anchorId, className }: CautionNoteProps) {
+  const uiLang = useUiLanguage();
+  const lang = langProp ?? uiLang;
   const headingId = useId();
   const caution = cautions[id];
   const Heading = `h${headingLevel}` as const;
@@ -88,13 +98,14 @@ export function CautionNote({ id, lang = 'en', headingLevel = 3, anchorId, class
 
 export interface CautionListProps {
   ids: readonly CautionId[];
+  /** Defaults to the screen's language. */
   lang?: Language;
   headingLevel?: HeadingLevel;
   className?: string;
 }
 
 /** Several cautions, each once, as a list; renders nothing when there are none. */
-export function CautionList({ ids, lang = 'en', headingLevel = 3, className }: CautionListProps) {
+export function CautionList({ ids, lang, headingLevel = 3, className }: CautionListProps) {
   const unique = [...new Set(ids)];
   if (unique.length === 0) return null;
   return (

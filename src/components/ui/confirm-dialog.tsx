@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Alert } from './alert';
 import { Button, type ButtonProps } from './button';
 
@@ -20,7 +21,8 @@ interface ConfirmDialogProps {
  * stays inside while it is open, Escape cancels, and focus goes back to what opened it.
  * The safe choice (Cancel) has the focus first.
  */
-export function ConfirmDialog({ open, title, children, confirmLabel, cancelLabel = 'Cancel', tone = 'primary', pending, error, onConfirm, onCancel }: ConfirmDialogProps) {
+export function ConfirmDialog({ open, title, children, confirmLabel, cancelLabel, tone = 'primary', pending, error, onConfirm, onCancel }: ConfirmDialogProps) {
+  const { t } = useTranslation();
   const ref = useRef<HTMLDialogElement>(null);
   const opener = useRef<Element | null>(null);
   const titleId = useId();
@@ -58,10 +60,10 @@ export function ConfirmDialog({ open, title, children, confirmLabel, cancelLabel
           {error ? <Alert tone="error">{error}</Alert> : null}
           <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
             <Button variant="secondary" size="lg" className="sm:h-11 sm:text-base" autoFocus onClick={onCancel} disabled={pending}>
-              {cancelLabel}
+              {cancelLabel ?? t(($) => $.actions.cancel)}
             </Button>
             <Button variant={tone} size="lg" className="sm:h-11 sm:text-base" onClick={onConfirm} disabled={pending}>
-              {pending ? 'Working…' : confirmLabel}
+              {pending ? t(($) => $.actions.working) : confirmLabel}
             </Button>
           </div>
         </div>
@@ -86,6 +88,7 @@ interface ConfirmActionProps {
 
 /** A button that asks first, then runs the action and reports a failure in place. */
 export function ConfirmAction({ label, ariaLabel, buttonProps, title, children, confirmLabel, tone = 'primary', onConfirm }: ConfirmActionProps) {
+  const { t } = useTranslation();
   const [open, setOpen] = useState(false);
   const [pending, setPending] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -96,7 +99,7 @@ export function ConfirmAction({ label, ariaLabel, buttonProps, title, children, 
       await onConfirm();
       setOpen(false);
     } catch (err) {
-      setError(err instanceof Error ? err.message : 'Something went wrong. Please try again.');
+      setError(err instanceof Error ? err.message : t(($) => $.apiErrors.unexpected));
     } finally {
       setPending(false);
     }

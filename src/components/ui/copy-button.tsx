@@ -1,8 +1,10 @@
 import { useEffect, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Button, type ButtonProps } from './button';
 
 /** Copies a value to the clipboard and says so (for screen readers too). */
-export function CopyButton({ value, label = 'Copy', copiedLabel = 'Copied', ...props }: Omit<ButtonProps, 'onClick' | 'value'> & { value: string; label?: string; copiedLabel?: string }) {
+export function CopyButton({ value, label, copiedLabel, ...props }: Omit<ButtonProps, 'onClick' | 'value'> & { value: string; label?: string; copiedLabel?: string }) {
+  const { t } = useTranslation();
   const [state, setState] = useState<'idle' | 'copied' | 'failed'>('idle');
   useEffect(() => {
     if (state === 'idle') return;
@@ -20,10 +22,10 @@ export function CopyButton({ value, label = 'Copy', copiedLabel = 'Copied', ...p
   return (
     <span className="inline-flex flex-col items-start gap-1">
       <Button variant="secondary" {...props} onClick={() => void copy()}>
-        {state === 'copied' ? copiedLabel : label}
+        {state === 'copied' ? (copiedLabel ?? t(($) => $.copy.copied)) : (label ?? t(($) => $.copy.copy))}
       </Button>
       <span role="status" aria-live="polite" className="text-sm text-ink-muted">
-        {state === 'copied' ? 'Copied to the clipboard.' : state === 'failed' ? 'Could not copy here: select the text and copy it by hand.' : ''}
+        {state === 'copied' ? t(($) => $.copy.done) : state === 'failed' ? t(($) => $.copy.failed) : ''}
       </span>
     </span>
   );

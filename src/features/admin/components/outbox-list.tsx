@@ -1,4 +1,5 @@
 import { Fragment, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { formatDateTime } from '@/lib/format';
@@ -25,29 +26,31 @@ function TextWithLinks({ text }: { text: string }) {
 
 /** E-mails the development mail sink captured, newest first; the text part only. */
 export function OutboxList() {
+  const { t } = useTranslation('admin');
+  const { t: tc } = useTranslation();
   const outbox = useOutbox();
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-ink-muted">
-          {outbox.data?.available ? `${outbox.data.messages.length} message${outbox.data.messages.length === 1 ? '' : 's'}, newest first.` : ''}
+          {outbox.data?.available ? t(($) => $.outbox.count, { count: outbox.data.messages.length }) : ''}
         </p>
         <Button variant="secondary" onClick={() => void outbox.refetch()} disabled={outbox.isFetching}>
-          {outbox.isFetching ? 'Refreshing…' : 'Refresh'}
+          {outbox.isFetching ? tc(($) => $.actions.refreshing) : tc(($) => $.actions.refresh)}
         </Button>
       </div>
       {outbox.isPending ? (
         <p role="status" className="text-ink-muted">
-          Loading the outbox…
+          {t(($) => $.outbox.loading)}
         </p>
       ) : outbox.isError ? (
-        <Alert tone="error">Could not load the outbox: {outbox.error.message}</Alert>
+        <Alert tone="error">{t(($) => $.outbox.loadFailed, { message: outbox.error.message })}</Alert>
       ) : !outbox.data.available ? (
-        <Alert tone="info">{outbox.data.message ?? 'There is no local outbox on this server.'}</Alert>
+        <Alert tone="info">{t(($) => $.outbox.unavailable)}</Alert>
       ) : outbox.data.messages.length === 0 ? (
-        <p className="text-ink-muted">No e-mails yet. Sign-ups, password resets and cohort invitations land here.</p>
+        <p className="text-ink-muted">{t(($) => $.outbox.empty)}</p>
       ) : (
-        <ul className="space-y-2" aria-label="Captured e-mails">
+        <ul className="space-y-2" aria-label={t(($) => $.outbox.label)}>
           {outbox.data.messages.map((m) => (
             <li key={m.id}>
               <details className="group rounded-card border border-sand-200 bg-white open:shadow-sm">
@@ -56,15 +59,15 @@ export function OutboxList() {
                     ▸
                   </span>
                   <span className="min-w-0 flex-1 sm:flex sm:items-center sm:gap-4">
-                    <span className="block font-medium sm:flex-1">{m.subject || '(no subject)'}</span>
-                    <span className="block text-sm text-ink-muted [overflow-wrap:anywhere]">to {m.to.join(', ')}</span>
+                    <span className="block font-medium sm:flex-1">{m.subject || t(($) => $.outbox.noSubject)}</span>
+                    <span className="block text-sm text-ink-muted [overflow-wrap:anywhere]">{t(($) => $.outbox.to, { to: m.to.join(', ') })}</span>
                     <time dateTime={m.receivedAt} className="block shrink-0 text-sm text-ink-muted">
                       {formatDateTime(m.receivedAt)}
                     </time>
                   </span>
                 </summary>
                 <div className="border-t border-sand-200 px-4 py-3">
-                  <p className="mb-2 text-sm text-ink-muted">From {m.from}</p>
+                  <p className="mb-2 text-sm text-ink-muted">{t(($) => $.outbox.from, { from: m.from })}</p>
                   <pre className="whitespace-pre-wrap break-words font-sans text-sm text-ink">
                     <TextWithLinks text={m.text} />
                   </pre>

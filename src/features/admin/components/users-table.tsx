@@ -1,24 +1,13 @@
 import { useState, type FormEvent } from 'react';
-import type { AdminUser, Role } from '@shared/schemas/auth';
+import { useTranslation } from 'react-i18next';
+import { roleSchema, type AdminUser, type Role } from '@shared/schemas/auth';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ConfirmAction, ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { formatDate } from '@/lib/format';
+import { formatDate, formatNumber } from '@/lib/format';
 import { useUpdateUser } from '../api/update-user';
 import { useUsers, type UsersParams } from '../api/get-users';
 
-const roleLabels: Record<Role, string> = { grower: 'Grower', educator: 'Educator', admin: 'Admin' };
-/** "a grower", "an educator", "an admin". */
-function withArticle(role: Role): string {
-  const word = roleLabels[role].toLowerCase();
-  return `${/^[aeiou]/.test(word) ? 'an' : 'a'} ${word}`;
-}
-
-const roleEffects: Record<Role, string> = {
-  grower: 'runs their own trials and joins cohorts; cannot start cohorts.',
-  educator: 'can also start and lead cohorts.',
-  admin: 'can also see every account, change roles, disable accounts and read the development outbox.',
-};
 
 interface UsersTableProps {
   params: UsersParams;
@@ -29,6 +18,8 @@ interface UsersTableProps {
 
 /** Accounts with search, paging, role changes and disable / enable, each confirmed first. */
 export function UsersTable({ params, onParamsChange, currentUserId }: UsersTableProps) {
+  const { t } = useTranslation('admin');
+  const { t: tc } = useTranslation();
   const users = useUsers(params);
   const update = useUpdateUser();
   const [search, setSearch] = useState(params.q ?? '');
@@ -47,7 +38,7 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
       await update.mutateAsync({ userId: pendingRole.user.id, input: { role: pendingRole.role } });
       setPendingRole(null);
     } catch (err) {
-      setRoleError(err instanceof Error ? err.message : 'Could not change the role.');
+      setRoleError(err instanceof Error ? err.message : t(($) => $.users.roleError));
     }
   };
 
@@ -61,20 +52,20 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
       <form role="search" onSubmit={submitSearch} className="flex flex-col gap-2 sm:flex-row sm:items-end">
         <div className="flex-1 space-y-1">
           <label htmlFor="account-search" className="block text-sm font-medium">
-            Search accounts
+            {t(($) => $.users.search)}
           </label>
           <input
             id="account-search"
             type="search"
             value={search}
             onChange={(e) => setSearch(e.target.value)}
-            placeholder="Name or e-mail"
+            placeholder={t(($) => $.users.searchPlaceholder)}
             className="block h-11 w-full rounded-lg border border-sand-300 bg-white px-3 text-base focus:border-terracotta-500 focus:outline-none focus:ring-2 focus:ring-terracotta-200"
           />
         </div>
         <div className="flex gap-2">
           <Button type="submit" className="h-11 flex-1 sm:flex-none">
-            Search
+            {t(($) => $.users.searchButton)}
           </Button>
           {params.q ? (
             <Button
@@ -85,7 +76,7 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
                 onParamsChange({ ...params, q: undefined, page: 1 });
               }}
             >
-              Show all
+              {t(($) => $.users.showAll)}
             </Button>
           ) : null}
         </div>
@@ -93,35 +84,35 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
 
       {users.isPending ? (
         <p role="status" className="text-ink-muted">
-          Loading accounts…
+          {t(($) => $.users.loading)}
         </p>
       ) : users.isError ? (
-        <Alert tone="error">Could not load the accounts: {users.error.message}</Alert>
+        <Alert tone="error">{t(($) => $.users.loadFailed, { message: users.error.message })}</Alert>
       ) : users.data.users.length === 0 ? (
-        <p className="text-ink-muted">{params.q ? `No account matches “${params.q}”.` : 'No accounts yet.'}</p>
+        <p className="text-ink-muted">{params.q ? t(($) => $.users.noMatch, { q: params.q }) : t(($) => $.users.none)}</p>
       ) : (
         <div className="overflow-hidden rounded-card border border-sand-200 bg-white">
           <table className="w-full text-sm" aria-describedby="accounts-range">
-            <caption className="sr-only">Accounts</caption>
+            <caption className="sr-only">{t(($) => $.users.caption)}</caption>
             <thead className="hidden bg-sand-50 text-left md:table-header-group">
               <tr>
                 <th scope="col" className="px-3 py-2 font-medium">
-                  Name
+                  {t(($) => $.users.name)}
                 </th>
                 <th scope="col" className="px-3 py-2 font-medium">
-                  E-mail
+                  {t(($) => $.users.email)}
                 </th>
                 <th scope="col" className="px-3 py-2 font-medium">
-                  Role
+                  {t(($) => $.users.role)}
                 </th>
                 <th scope="col" className="px-3 py-2 font-medium">
-                  Status
+                  {t(($) => $.users.status)}
                 </th>
                 <th scope="col" className="px-3 py-2 font-medium">
-                  Since
+                  {t(($) => $.users.since)}
                 </th>
                 <th scope="col" className="px-3 py-2 font-medium">
-                  <span className="sr-only">Actions</span>
+                  <span className="sr-only">{t(($) => $.users.actions)}</span>
                 </th>
               </tr>
             </thead>
@@ -132,74 +123,74 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
                   <tr key={u.id} className="block border-b border-sand-200 px-3 py-3 last:border-0 md:table-row md:px-0 md:py-0">
                     <td className="block py-0.5 md:table-cell md:px-3 md:py-2">
                       <span className="font-medium">{u.displayName}</span>
-                      {isMe ? <span className="ml-2 rounded bg-terracotta-50 px-1.5 py-0.5 text-xs font-medium text-terracotta-800">you</span> : null}
+                      {isMe ? <span className="ml-2 rounded bg-terracotta-50 px-1.5 py-0.5 text-xs font-medium text-terracotta-800">{tc(($) => $.you)}</span> : null}
                     </td>
                     <td className="block py-0.5 text-ink-muted [overflow-wrap:anywhere] md:table-cell md:px-3 md:py-2 md:text-ink">
                       {u.email}
-                      {u.emailVerified ? null : <span className="ml-1 whitespace-nowrap text-xs text-ink-muted">(not confirmed)</span>}
+                      {u.emailVerified ? null : <span className="ml-1 whitespace-nowrap text-xs text-ink-muted">{t(($) => $.users.notConfirmed)}</span>}
                     </td>
                     <td className="flex items-center justify-between gap-2 py-1 md:table-cell md:px-3 md:py-2">
                       <span className="text-ink-muted md:hidden" aria-hidden="true">
-                        Role
+                        {t(($) => $.users.role)}
                       </span>
                       <select
-                        aria-label={`Role of ${u.displayName}`}
+                        aria-label={t(($) => $.users.roleOf, { name: u.displayName })}
                         value={u.role}
                         disabled={isMe}
-                        title={isMe ? 'You cannot change your own role.' : undefined}
+                        title={isMe ? t(($) => $.users.ownRole) : undefined}
                         onChange={(e) => {
                           setRoleError(null);
                           setPendingRole({ user: u, role: e.target.value as Role });
                         }}
                         className="h-10 rounded-lg border border-sand-300 bg-white px-2 text-sm disabled:opacity-60"
                       >
-                        {(Object.keys(roleLabels) as Role[]).map((r) => (
+                        {roleSchema.options.map((r) => (
                           <option key={r} value={r}>
-                            {roleLabels[r]}
+                            {t(($) => $.users.roles[r])}
                           </option>
                         ))}
                       </select>
                     </td>
                     <td className="flex items-center justify-between gap-2 py-1 md:table-cell md:px-3 md:py-2">
                       <span className="text-ink-muted md:hidden" aria-hidden="true">
-                        Status
+                        {t(($) => $.users.status)}
                       </span>
                       {u.disabled ? (
-                        <span className="rounded-full border border-red-300 bg-red-50 px-2 py-0.5 text-xs font-medium text-red-900">Disabled</span>
+                        <span className="rounded-full border border-red-300 bg-red-50 px-2 py-0.5 text-xs font-medium text-red-900">{t(($) => $.users.disabled)}</span>
                       ) : (
-                        <span className="rounded-full border border-sage-200 bg-sage-50 px-2 py-0.5 text-xs font-medium text-sage-800">Active</span>
+                        <span className="rounded-full border border-sage-200 bg-sage-50 px-2 py-0.5 text-xs font-medium text-sage-800">{t(($) => $.users.active)}</span>
                       )}
                     </td>
                     <td className="flex items-center justify-between gap-2 py-1 md:table-cell md:px-3 md:py-2">
                       <span className="text-ink-muted md:hidden" aria-hidden="true">
-                        Since
+                        {t(($) => $.users.since)}
                       </span>
                       {formatDate(u.createdAt)}
                     </td>
                     <td className="block pt-2 md:table-cell md:px-3 md:py-2 md:text-right">
                       {isMe ? null : u.disabled ? (
                         <ConfirmAction
-                          label="Enable"
-                          ariaLabel={`Enable ${u.displayName}`}
+                          label={t(($) => $.users.enable)}
+                          ariaLabel={t(($) => $.users.enableLabel, { name: u.displayName })}
                           buttonProps={{ className: 'w-full md:w-auto' }}
-                          title={`Enable ${u.displayName}?`}
-                          confirmLabel="Enable account"
+                          title={t(($) => $.users.enableTitle, { name: u.displayName })}
+                          confirmLabel={t(($) => $.users.enableConfirm)}
                           onConfirm={() => update.mutateAsync({ userId: u.id, input: { disabled: false } })}
                         >
-                          <p>{u.email} can sign in again with their password.</p>
+                          <p>{t(($) => $.users.enableBody, { email: u.email })}</p>
                         </ConfirmAction>
                       ) : (
                         <ConfirmAction
-                          label="Disable"
-                          ariaLabel={`Disable ${u.displayName}`}
+                          label={t(($) => $.users.disable)}
+                          ariaLabel={t(($) => $.users.disableLabel, { name: u.displayName })}
                           buttonProps={{ className: 'w-full md:w-auto' }}
-                          title={`Disable ${u.displayName}?`}
-                          confirmLabel="Disable account"
+                          title={t(($) => $.users.disableTitle, { name: u.displayName })}
+                          confirmLabel={t(($) => $.users.disableConfirm)}
                           tone="danger"
                           onConfirm={() => update.mutateAsync({ userId: u.id, input: { disabled: true } })}
                         >
-                          <p>{u.email} is signed out everywhere at once and cannot sign in until you enable the account again.</p>
-                          <p>Nothing they recorded is deleted.</p>
+                          <p>{t(($) => $.users.disableBody, { email: u.email })}</p>
+                          <p>{t(($) => $.users.disableBody2)}</p>
                         </ConfirmAction>
                       )}
                     </td>
@@ -212,20 +203,20 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
       )}
 
       {users.data && total > 0 ? (
-        <nav aria-label="Account pages" className="flex flex-wrap items-center justify-between gap-3">
+        <nav aria-label={t(($) => $.users.pages)} className="flex flex-wrap items-center justify-between gap-3">
           <p id="accounts-range" className="text-sm text-ink-muted">
-            {first}–{last} of {total} account{total === 1 ? '' : 's'}
-            {params.q ? ` matching “${params.q}”` : ''}
+            {t(($) => $.users.range, { first: formatNumber(first, 0), last: formatNumber(last, 0), count: total })}
+            {params.q ? t(($) => $.users.rangeMatching, { q: params.q }) : ''}
           </p>
           <div className="flex gap-2">
             <Button variant="secondary" disabled={params.page <= 1} onClick={() => onParamsChange({ ...params, page: params.page - 1 })}>
-              Previous
+              {tc(($) => $.actions.previous)}
             </Button>
-            <span className="self-center text-sm">
-              Page {params.page} of {pages}
+            <span className="self-center whitespace-nowrap text-sm">
+              {t(($) => $.users.page, { page: params.page, pages })}
             </span>
             <Button variant="secondary" disabled={params.page >= pages} onClick={() => onParamsChange({ ...params, page: params.page + 1 })}>
-              Next
+              {tc(($) => $.actions.next)}
             </Button>
           </div>
         </nav>
@@ -233,8 +224,8 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
 
       <ConfirmDialog
         open={pendingRole !== null}
-        title={pendingRole ? `Make ${pendingRole.user.displayName} ${withArticle(pendingRole.role)}?` : ''}
-        confirmLabel="Change role"
+        title={pendingRole ? t(($) => $.users.changeTitle, { name: pendingRole.user.displayName, role: t(($) => $.users.roleArticle[pendingRole.role]) }) : ''}
+        confirmLabel={t(($) => $.users.changeConfirm)}
         pending={update.isPending}
         error={roleError}
         onConfirm={() => void confirmRole()}
@@ -242,7 +233,12 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
       >
         {pendingRole ? (
           <p>
-            {pendingRole.user.email} is now {withArticle(pendingRole.user.role)}. As {withArticle(pendingRole.role)} they {roleEffects[pendingRole.role]}
+            {t(($) => $.users.changeBody, {
+              email: pendingRole.user.email,
+              from: t(($) => $.users.roleArticle[pendingRole.user.role]),
+              to: t(($) => $.users.roleArticle[pendingRole.role]),
+              effect: t(($) => $.users.roleEffects[pendingRole.role]),
+            })}
           </p>
         ) : null}
       </ConfirmDialog>

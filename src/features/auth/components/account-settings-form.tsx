@@ -1,11 +1,12 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { updateAccountInputSchema, type Account, type UpdateAccountInput } from '@shared/schemas/auth';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField } from '@/components/ui/field';
-import { applyServerErrors } from '@/lib/form-errors';
+import { LANGUAGES } from '@/i18n';
+import { applyServerErrors, localizedZodResolver } from '@/lib/form-errors';
 import { useUpdateAccount } from '../api/auth-mutations';
 
 function valuesOf(a: Account): UpdateAccountInput {
@@ -14,11 +15,13 @@ function valuesOf(a: Account): UpdateAccountInput {
 
 /** Name to show, units and language. */
 export function AccountSettingsForm({ account }: { account: Account }) {
+  const { t } = useTranslation('auth');
+  const { t: tc } = useTranslation();
   const update = useUpdateAccount();
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const { register, handleSubmit, setError, formState, reset } = useForm<UpdateAccountInput>({
-    resolver: zodResolver(updateAccountInputSchema),
+    resolver: localizedZodResolver(updateAccountInputSchema),
     defaultValues: valuesOf(account),
   });
   const onSubmit = handleSubmit(async (values) => {
@@ -34,32 +37,35 @@ export function AccountSettingsForm({ account }: { account: Account }) {
   });
   const { errors } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Profile and preferences">
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label={t(($) => $.settings.form)}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <InputField
-        label="Name to show"
+        label={t(($) => $.fields.displayName)}
         autoComplete="nickname"
-        hint="Shown to you and to site admins. Cohort members never see it; they see your pseudonym."
+        hint={t(($) => $.settings.displayNameHint)}
         {...register('displayName')}
-        error={errors.displayName ? 'Enter a name of 1 to 80 characters.' : undefined}
+        error={errors.displayName ? t(($) => $.settings.displayNameError) : undefined}
       />
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="Units" hint="For entering and reading volumes, weights and temperatures." {...register('unitSystem')} error={errors.unitSystem?.message}>
-          <option value="metric">Metric (L, kg, °C)</option>
-          <option value="us">US customary (gal, lb, °F)</option>
+        <SelectField label={t(($) => $.fields.units)} hint={t(($) => $.settings.unitsHint)} {...register('unitSystem')} error={errors.unitSystem?.message}>
+          <option value="metric">{tc(($) => $.units.metric)}</option>
+          <option value="us">{tc(($) => $.units.us)}</option>
         </SelectField>
-        <SelectField label="Language" hint="For the screens and for the e-mails Seepwise sends you." {...register('language')} error={errors.language?.message}>
-          <option value="en">English</option>
-          <option value="es">Español</option>
+        <SelectField label={t(($) => $.fields.language)} hint={t(($) => $.settings.languageHint)} {...register('language')} error={errors.language?.message}>
+          {LANGUAGES.map((l) => (
+            <option key={l} value={l} lang={l}>
+              {tc(($) => $.language[l])}
+            </option>
+          ))}
         </SelectField>
       </div>
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" size="lg" disabled={formState.isSubmitting || !formState.isDirty}>
-          {formState.isSubmitting ? 'Saving…' : 'Save changes'}
+          {formState.isSubmitting ? tc(($) => $.actions.saving) : t(($) => $.settings.submit)}
         </Button>
         {saved && !formState.isDirty ? (
           <p role="status" className="text-sm font-medium text-sage-800">
-            Saved.
+            {tc(($) => $.actions.saved)}
           </p>
         ) : null}
       </div>

@@ -1,12 +1,12 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { changePasswordInputSchema, MIN_PASSWORD_LENGTH } from '@shared/schemas/auth';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField } from '@/components/ui/field';
-import { applyServerErrors } from '@/lib/form-errors';
+import { applyServerErrors, localizedZodResolver } from '@/lib/form-errors';
 import { useChangePassword } from '../api/auth-mutations';
 
 const formSchema = changePasswordInputSchema
@@ -16,11 +16,15 @@ type FormValues = z.infer<typeof formSchema>;
 
 /** Change the password; every other session is signed out, this one carries on. */
 export function ChangePasswordForm() {
+  const { t } = useTranslation('auth');
   const change = useChangePassword();
   const [formError, setFormError] = useState<string | null>(null);
   const [done, setDone] = useState(false);
   const { register, handleSubmit, setError, formState, reset } = useForm<FormValues>({
-    resolver: zodResolver(formSchema),
+    resolver: localizedZodResolver(formSchema, {
+      currentPassword: (i) => (i.code === 'too_small' ? t(($) => $.password.currentRequired) : undefined),
+      confirm: t(($) => $.password.differ),
+    }),
     defaultValues: { currentPassword: '', newPassword: '', confirm: '' },
   });
   const onSubmit = handleSubmit(async ({ currentPassword, newPassword }) => {
@@ -36,21 +40,21 @@ export function ChangePasswordForm() {
   });
   const { errors } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Change password">
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label={t(($) => $.password.form)}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      {done ? <Alert tone="success">Password changed. Any other device signed in to your account has been signed out.</Alert> : null}
-      <InputField label="Current password" type="password" autoComplete="current-password" {...register('currentPassword')} error={errors.currentPassword?.message} />
+      {done ? <Alert tone="success">{t(($) => $.password.done)}</Alert> : null}
+      <InputField label={t(($) => $.fields.currentPassword)} type="password" autoComplete="current-password" {...register('currentPassword')} error={errors.currentPassword?.message} />
       <InputField
-        label="New password"
+        label={t(($) => $.fields.newPassword)}
         type="password"
         autoComplete="new-password"
-        hint={`At least ${MIN_PASSWORD_LENGTH} characters; a short phrase works well.`}
+        hint={t(($) => $.fields.passwordHint, { min: MIN_PASSWORD_LENGTH })}
         {...register('newPassword')}
         error={errors.newPassword?.message}
       />
-      <InputField label="Repeat the new password" type="password" autoComplete="new-password" {...register('confirm')} error={errors.confirm?.message} />
+      <InputField label={t(($) => $.fields.repeatNewPassword)} type="password" autoComplete="new-password" {...register('confirm')} error={errors.confirm?.message} />
       <Button type="submit" size="lg" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Changing…' : 'Change password'}
+        {formState.isSubmitting ? t(($) => $.password.submitting) : t(($) => $.password.submit)}
       </Button>
     </form>
   );

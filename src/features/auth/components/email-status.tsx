@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import type { Account } from '@shared/schemas/auth';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -5,6 +6,8 @@ import { useResendVerification } from '../api/resend-verification';
 
 /** The account's e-mail address, whether it is confirmed, and a way to get the link again. */
 export function EmailStatus({ account }: { account: Account }) {
+  const { t } = useTranslation('auth');
+  const { t: tc } = useTranslation();
   const resend = useResendVerification();
   return (
     <div className="space-y-3">
@@ -12,18 +15,18 @@ export function EmailStatus({ account }: { account: Account }) {
       {account.emailVerified ? (
         <p className="flex items-center gap-2 text-sage-800">
           <span aria-hidden="true" className="inline-block size-2.5 rounded-full bg-sage-500" />
-          Confirmed. Reminders and cohort e-mails reach you here.
+          {t(($) => $.email.confirmed)}
         </p>
       ) : (
         <>
           <p className="flex items-center gap-2 text-amber-900">
             <span aria-hidden="true" className="inline-block size-2.5 rounded-full bg-amber-500" />
-            Not confirmed yet. Open the link we e-mailed you so refill reminders and frost warnings reach you.
+            {t(($) => $.email.notConfirmed)}
           </p>
-          {resend.isSuccess ? <Alert tone="success">{resend.data.message} Check your spam folder too.</Alert> : null}
+          {resend.isSuccess ? <Alert tone="success">{t(($) => $.email.resent)}</Alert> : null}
           {resend.isError ? <Alert tone="error">{resend.error.message}</Alert> : null}
           <Button variant="secondary" size="lg" disabled={resend.isPending} onClick={() => resend.mutate()}>
-            {resend.isPending ? 'Sending…' : 'Send the link again'}
+            {resend.isPending ? tc(($) => $.actions.sending) : t(($) => $.email.resend)}
           </Button>
         </>
       )}

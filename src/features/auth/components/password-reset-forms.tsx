@@ -1,5 +1,5 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { z } from 'zod';
@@ -8,13 +8,14 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField } from '@/components/ui/field';
 import { paths } from '@/config/paths';
-import { applyServerErrors } from '@/lib/form-errors';
+import { applyServerErrors, localizedZodResolver } from '@/lib/form-errors';
 import { useRequestPasswordReset, useResetPassword } from '../api/auth-mutations';
 
 export function RequestResetForm() {
+  const { t } = useTranslation('auth');
   const request = useRequestPasswordReset();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<RequestPasswordResetInput>({ resolver: zodResolver(requestPasswordResetInputSchema) });
+  const { register, handleSubmit, setError, formState } = useForm<RequestPasswordResetInput>({ resolver: localizedZodResolver(requestPasswordResetInputSchema) });
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
     try {
@@ -23,13 +24,13 @@ export function RequestResetForm() {
       setFormError(applyServerErrors(err, setError));
     }
   });
-  if (request.isSuccess) return <Alert tone="success">{request.data.message}</Alert>;
+  if (request.isSuccess) return <Alert tone="success">{t(($) => $.forgot.sent)}</Alert>;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Request a password reset">
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label={t(($) => $.forgot.form)}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      <InputField label="E-mail" type="email" autoComplete="email" {...register('email')} error={formState.errors.email?.message} />
+      <InputField label={t(($) => $.fields.email)} type="email" autoComplete="email" {...register('email')} error={formState.errors.email?.message} />
       <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        Send me a reset link
+        {t(($) => $.forgot.submit)}
       </Button>
     </form>
   );
@@ -41,9 +42,12 @@ const newPasswordFormSchema = z
 type NewPasswordForm = z.infer<typeof newPasswordFormSchema>;
 
 export function ResetPasswordForm({ token }: { token: string }) {
+  const { t } = useTranslation('auth');
   const reset = useResetPassword();
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<NewPasswordForm>({ resolver: zodResolver(newPasswordFormSchema) });
+  const { register, handleSubmit, setError, formState } = useForm<NewPasswordForm>({
+    resolver: localizedZodResolver(newPasswordFormSchema, { confirm: t(($) => $.reset.differ) }),
+  });
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
     try {
@@ -55,20 +59,20 @@ export function ResetPasswordForm({ token }: { token: string }) {
   if (reset.isSuccess) {
     return (
       <Alert tone="success">
-        {reset.data.message}{' '}
+        {t(($) => $.reset.done)}{' '}
         <Link className="font-medium underline" to={paths.signIn}>
-          Sign in
+          {t(($) => $.reset.signIn)}
         </Link>
       </Alert>
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label={t(($) => $.reset.form)}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      <InputField label="New password" type="password" autoComplete="new-password" {...register('password')} error={formState.errors.password?.message} />
-      <InputField label="Repeat the new password" type="password" autoComplete="new-password" {...register('confirm')} error={formState.errors.confirm?.message} />
+      <InputField label={t(($) => $.fields.newPassword)} type="password" autoComplete="new-password" {...register('password')} error={formState.errors.password?.message} />
+      <InputField label={t(($) => $.fields.repeatNewPassword)} type="password" autoComplete="new-password" {...register('confirm')} error={formState.errors.confirm?.message} />
       <Button type="submit" className="w-full" disabled={formState.isSubmitting}>
-        Save new password
+        {t(($) => $.reset.submit)}
       </Button>
     </form>
   );

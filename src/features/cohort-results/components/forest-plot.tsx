@@ -1,25 +1,27 @@
+import { useTranslation } from 'react-i18next';
 import type { VisualizationSpec } from 'vega-embed';
 import { effectAxis, forestPlotSpec, forestTitle, trialLabels } from '@shared/charts/cohort-charts';
 import type { CohortResults, EffectKey, PooledEstimate } from '@shared/schemas/cohort-results';
 import { Chart } from '@/components/charts/chart';
 import { useUnits } from '@/lib/units';
 import { useElementWidth } from '../hooks/use-element-width';
-import { heterogeneitySentence, measureLabels, num, pValue, plural } from './format';
+import { heterogeneitySentence, measureLabel, num, pValue, sharedT, trials } from './format';
 
 const th = 'px-3 py-2 text-right font-medium';
 const td = 'num whitespace-nowrap px-3 py-2';
 
 function Heterogeneity({ p, effect, unit, convert }: { p: PooledEstimate; effect: EffectKey; unit: string; convert: (v: number) => number }) {
+  const { t } = useTranslation('cohortResults');
   const logScale = effect !== 'harvestPerPlantDiff';
   const tau = Math.sqrt(p.tau2);
   // On the log scale τ reads as a typical factor between gardens' true ratios; on the kg scale it is kg per plant.
   const tauWords = logScale
-    ? `τ = ${num(tau, 3)}: a typical garden’s true ratio sits within a factor of about ${num(Math.exp(tau), 2)} of the pooled one.`
-    : `τ = ${num(convert(tau), 3)} ${unit} per plant: the typical spread of gardens’ true differences around the pooled one.`;
+    ? t(($) => $.forest.tauLog, { tau: num(tau, 3), factor: num(Math.exp(tau), 2) })
+    : t(($) => $.forest.tauKg, { tau: num(convert(tau), 3), unit });
   return (
     <div className="space-y-2 rounded-lg border border-sand-200 bg-sand-50 p-4" role="group" aria-labelledby="heterogeneity-heading">
       <h4 id="heterogeneity-heading" className="font-semibold">
-        How much the gardens differ
+        {t(($) => $.forest.hetHeading)}
       </h4>
       <p>{heterogeneitySentence(p)}</p>
       <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm sm:grid-cols-5">
@@ -37,17 +39,17 @@ function Heterogeneity({ p, effect, unit, convert }: { p: PooledEstimate; effect
         </div>
         <div>
           <dt className="text-ink-muted">I²</dt>
-          <dd className="font-medium tabular-nums">{num(p.i2, 1)} %</dd>
+          <dd className="font-medium tabular-nums">{num(p.i2, 1)}&nbsp;%</dd>
         </div>
         <div>
-          <dt className="text-ink-muted">τ² {logScale ? '(log scale)' : `(${unit}²)`}</dt>
+          <dt className="text-ink-muted">τ² {logScale ? t(($) => $.forest.logScale) : `(${unit}²)`}</dt>
           <dd className="font-medium tabular-nums">{num(logScale ? p.tau2 : convert(tau) ** 2, 4)}</dd>
         </div>
       </dl>
       <p className="text-sm text-ink-muted">
-        {tauWords} τ² by {p.method === 'DL' ? 'DerSimonian-Laird' : 'REML'}
-        {p.method === 'REML' && !p.converged ? ' — REML did not converge, so read τ² with care or switch to DerSimonian-Laird' : ''}.
-        {p.k < 10 ? ` With only ${p.k} trials, I² and τ² are themselves uncertain.` : ''}
+        {tauWords} {t(($) => $.forest.tauBy, { method: p.method === 'DL' ? 'DerSimonian-Laird' : 'REML' })}
+        {p.method === 'REML' && !p.converged ? t(($) => $.forest.remlNotConverged) : ''}.
+        {p.k < 10 ? t(($) => $.forest.fewK, { k: String(p.k) }) : ''}
       </p>
     </div>
   );
@@ -56,67 +58,69 @@ function Heterogeneity({ p, effect, unit, convert }: { p: PooledEstimate; effect
 /** The forest plot of one measure with its table alternative and the heterogeneity in words. */
 export function ForestPlot({ results, effect }: { results: CohortResults; effect: EffectKey }) {
   const units = useUnits();
+  const { t } = useTranslation('cohortResults');
+  const st = sharedT();
   const e = results.effects[effect];
-  const axis = effectAxis(effect, { units: units.system });
+  const axis = effectAxis(effect, { units: units.system, t: st });
   const [ref, width] = useElementWidth<HTMLDivElement>();
   // Below about 560 px the row labels go on two lines so the intervals keep some width.
   const compact = width !== null && width < 560;
-  const spec = forestPlotSpec(results, effect, { units: units.system, width: 'container', compact });
-  const labels = trialLabels(results);
+  const spec = forestPlotSpec(results, effect, { units: units.system, width: 'container', compact, t: st });
+  const labels = trialLabels(results, st);
   const conf = Math.round(results.options.confidence * 100);
   const digits = axis.unit === '%' ? 0 : 2;
-  const v = (x: number) => `${num(axis.convert(x), digits)}${axis.unit === '%' ? ' %' : ` ${axis.unit}`}`;
-  const iv = (ci: readonly [number, number]) => `${num(axis.convert(ci[0]), digits)} to ${num(axis.convert(ci[1]), digits)}`;
+  const v = (x: number) => `${num(axis.convert(x), digits)}\u00a0${axis.unit}`;
+  const iv = (ci: readonly [number, number]) => t(($) => $.range, { lo: num(axis.convert(ci[0]), digits), hi: num(axis.convert(ci[1]), digits) });
   const p = e.pooled;
 
   if (!spec) {
     return (
       <div ref={ref}>
         <p className="text-ink-muted">
-          No trial has a {measureLabels[effect].toLowerCase()} result yet: it needs at least two pairs with records on both beds.
+          {t(($) => $.forest.none, { measure: measureLabel(effect, true) })}
         </p>
       </div>
     );
   }
   const takeaway = p
-    ? `Each square is one trial (bigger = more weight) with its ${conf} % confidence interval; the diamond is the pooled estimate, ${v(p.display.estimate)} (${iv(p.display.ci)})${
-        p.display.predictionInterval ? `; the dashed line is where one new garden would likely fall, ${iv(p.display.predictionInterval)}` : ''
-      }.`
-    : `Each square is one trial with its ${conf} % confidence interval. ${e.reason ?? ''}`;
+    ? p.display.predictionInterval
+      ? t(($) => $.forest.takeawayPi, { confidence: conf, estimate: v(p.display.estimate), ci: iv(p.display.ci), pi: iv(p.display.predictionInterval) })
+      : t(($) => $.forest.takeaway, { confidence: conf, estimate: v(p.display.estimate), ci: iv(p.display.ci) })
+    : `${t(($) => $.forest.takeawayNone, { confidence: conf })} ${e.reason ?? ''}`;
   // The same order as the chart: largest effect first.
   const forestRows = [...e.forest].sort((a, b) => b.display.estimate - a.display.estimate);
 
   return (
     <div ref={ref} className="space-y-4">
       <Chart
-        title={forestTitle(effect)}
+        title={forestTitle(effect, st)}
         takeaway={takeaway}
         spec={spec as VisualizationSpec}
         fileName={`cohort-forest-${effect}`}
         alternative={
           <table className="w-full text-sm">
             <caption className="sr-only">
-              {measureLabels[effect]} per trial and pooled ({axis.unit === '%' ? '%' : axis.unit})
+              {t(($) => $.forest.caption, { measure: measureLabel(effect), unit: axis.unit })}
             </caption>
             <thead className="text-ink-muted">
               <tr>
                 <th scope="col" className="px-3 py-2 text-left font-medium">
-                  Trial
+                  {t(($) => $.forest.trial)}
                 </th>
                 <th scope="col" className={th}>
-                  Pairs
+                  {t(($) => $.forest.pairs)}
                 </th>
                 <th scope="col" className={th}>
-                  Estimate
+                  {t(($) => $.forest.estimate)}
                 </th>
                 <th scope="col" className={th}>
-                  {conf} % CI
+                  {t(($) => $.forest.ci, { confidence: conf })}
                 </th>
                 <th scope="col" className={th}>
-                  Weight
+                  {t(($) => $.forest.weight)}
                 </th>
                 <th scope="col" className="px-3 py-2 text-left font-medium">
-                  Note
+                  {t(($) => $.forest.note)}
                 </th>
               </tr>
             </thead>
@@ -129,9 +133,9 @@ export function ForestPlot({ results, effect }: { results: CohortResults; effect
                   <td className={td}>{f.pairs}</td>
                   <td className={td}>{v(f.display.estimate)}</td>
                   <td className={td}>{iv(f.display.ci)}</td>
-                  <td className={td}>{f.weightPercent === null ? '—' : `${num(f.weightPercent, 1)} %`}</td>
+                  <td className={td}>{f.weightPercent === null ? '—' : `${num(f.weightPercent, 1)}\u00a0%`}</td>
                   <td className="min-w-44 px-3 py-2 text-ink-muted">
-                    {[f.flagged ? 'quality flag' : null, f.source === 'season-totals' ? 'single pair, borrowed variance' : null].filter(Boolean).join('; ') ||
+                    {[f.flagged ? t(($) => $.forest.flag) : null, f.source === 'season-totals' ? t(($) => $.forest.borrowed) : null].filter(Boolean).join('; ') ||
                       '—'}
                   </td>
                 </tr>
@@ -139,25 +143,25 @@ export function ForestPlot({ results, effect }: { results: CohortResults; effect
               {p ? (
                 <tr className="border-t-2 border-sand-300 font-semibold">
                   <th scope="row" className="px-3 py-2 text-left">
-                    Pooled estimate ({plural(p.k, 'trial')})
+                    {t(($) => $.forest.pooled, { trials: trials(p.k) })}
                   </th>
                   <td className={td}>—</td>
                   <td className={td}>{v(p.display.estimate)}</td>
                   <td className={td}>{iv(p.display.ci)}</td>
-                  <td className={td}>100 %</td>
-                  <td className="px-3 py-2 font-normal text-ink-muted">random effects, {p.method}</td>
+                  <td className={td}>{num(100)}&nbsp;%</td>
+                  <td className="px-3 py-2 font-normal text-ink-muted">{t(($) => $.forest.randomEffects, { method: p.method })}</td>
                 </tr>
               ) : null}
               {p?.display.predictionInterval ? (
                 <tr className="border-t border-sand-100">
                   <th scope="row" className="px-3 py-2 text-left font-medium">
-                    Prediction interval
+                    {t(($) => $.forest.prediction)}
                   </th>
                   <td className={td}>—</td>
                   <td className={td}>—</td>
                   <td className={td}>{iv(p.display.predictionInterval)}</td>
                   <td className={td}>—</td>
-                  <td className="min-w-44 px-3 py-2 text-ink-muted">where one new garden would likely fall</td>
+                  <td className="min-w-44 px-3 py-2 text-ink-muted">{t(($) => $.forest.predictionNote)}</td>
                 </tr>
               ) : null}
             </tbody>

@@ -1,7 +1,9 @@
 import type { CohortResults, EffectResult } from '@shared/schemas/cohort-results';
+import { useTranslation } from 'react-i18next';
 import { Card } from '@/components/ui/card';
+import { formatDate } from '@/lib/format';
 import { useUnits } from '@/lib/units';
-import { num, pct, plural, range } from './format';
+import { crT, growers, num, pct, range, trials } from './format';
 import { whyNotPooled } from './labels';
 
 /** Below this many trials the between-garden spread is a rough guess (product rule, no source). */
@@ -22,97 +24,92 @@ function Stat({ label, value, lines, tone }: { label: string; value: string; lin
 }
 
 function waterSentences(e: EffectResult, conf: number): string[] {
+  const t = crT();
   const p = e.pooled;
-  if (!p) return [`No pooled water saving yet: it needs at least 2 trials with two or more pairs of pot and surface beds with water records (now ${e.k}).`];
+  if (!p) return [t(($) => $.headline.waterNone, { k: e.k })];
   const est = p.display.estimate;
   const [lo, hi] = p.display.ci;
+  const across = { trials: trials(p.k), growers: growers(new Set(e.forest.map((f) => f.pseudonym)).size), amount: pct(Math.abs(est)) };
   const out = [
-    `Across ${plural(p.k, 'trial')} (${plural(new Set(e.forest.map((f) => f.pseudonym)).size, 'grower')}), the pots used about ${pct(Math.abs(est))} ${est >= 0 ? 'less' : 'more'} water than surface watering on the same bed area.`,
-    `The ${conf} % confidence interval, ${range(p.display.ci, '%')} saved, is the range of average savings the data are compatible with. ` +
-      (lo > 0
-        ? 'All of it is a saving.'
-        : hi < 0
-          ? 'All of it means the pots used more water.'
-          : 'It includes 0, so the data cannot yet tell whether the pots save water on average.'),
+    est >= 0 ? t(($) => $.headline.waterAcross, across) : t(($) => $.headline.waterAcrossMore, across),
+    `${t(($) => $.headline.waterCi, { confidence: conf, range: range(p.display.ci, '%') })} ` +
+      (lo > 0 ? t(($) => $.headline.allSaving) : hi < 0 ? t(($) => $.headline.allMore) : t(($) => $.headline.includesZero)),
   ];
   if (p.display.predictionInterval) {
-    out.push(
-      `In one new garden like these, the saving would likely fall between ${num(p.display.predictionInterval[0])} and ${num(p.display.predictionInterval[1])} % (the ${conf} % prediction interval). It is wider than the confidence interval because gardens really differ, not only by chance.`,
-    );
+    out.push(t(($) => $.headline.prediction, { lo: num(p.display.predictionInterval[0]), hi: num(p.display.predictionInterval[1]), confidence: conf }));
   } else {
-    out.push('A prediction interval (where one new garden would likely fall) needs at least 3 trials.');
+    out.push(t(($) => $.headline.predictionNeeds));
   }
-  if (p.k < FEW_TRIALS) out.push(`With only ${plural(p.k, 'trial')}, how much gardens differ is itself a rough guess, so every interval here is a first look.`);
+  if (p.k < FEW_TRIALS) out.push(t(($) => $.headline.fewTrials, { trials: trials(p.k) }));
   return out;
 }
 
 /** The answer in one card: water saved, harvest and water-use efficiency, each with its interval and its caveats. */
 export function Headline({ results }: { results: CohortResults }) {
   const units = useUnits();
+  const { t } = useTranslation('cohortResults');
   const conf = Math.round(results.options.confidence * 100);
   const water = results.effects.waterLogRatio;
   const harvest = results.effects.harvestPerPlantDiff;
   const wue = results.effects.wueLogRatio;
   const mass = (kg: number, signed = false) => `${num(units.show(kg, 'mass'), 2, signed)} ${units.label('mass')}`;
+  const ci = (r: string) => t(($) => $.headline.ci, { confidence: conf, range: r });
 
   const waterStat = water.pooled
     ? {
-        value: water.pooled.display.estimate >= 0 ? pct(water.pooled.display.estimate) : `${pct(-water.pooled.display.estimate)} more`,
+        value: water.pooled.display.estimate >= 0 ? pct(water.pooled.display.estimate) : t(($) => $.headline.more, { value: pct(-water.pooled.display.estimate) }),
         lines: [
-          `${conf} % CI ${range(water.pooled.display.ci, '%')}`,
-          water.pooled.display.predictionInterval ? `New garden: ${range(water.pooled.display.predictionInterval, '%')}` : 'New garden: needs 3 trials',
-          `${plural(water.pooled.k, 'trial')}`,
+          ci(range(water.pooled.display.ci, '%')),
+          water.pooled.display.predictionInterval ? t(($) => $.headline.newGarden, { range: range(water.pooled.display.predictionInterval, '%') }) : t(($) => $.headline.newGardenNeeds),
+          trials(water.pooled.k),
         ],
       }
-    : { value: '—', lines: [`${plural(water.k, 'trial')} so far; pooling needs 2`] };
+    : { value: '—', lines: [t(($) => $.headline.soFar, { trials: trials(water.k) })] };
 
   const harvestStat = harvest.pooled
     ? {
         value: `${mass(harvest.pooled.display.estimate, true)}`,
         lines: [
-          `${conf} % CI ${mass(harvest.pooled.display.ci[0], false)} to ${mass(harvest.pooled.display.ci[1], false)}`,
-          `per plant, pots − surface · ${plural(harvest.pooled.k, 'trial')}`,
+          ci(t(($) => $.range, { lo: mass(harvest.pooled.display.ci[0], false), hi: mass(harvest.pooled.display.ci[1], false) })),
+          t(($) => $.headline.perPlant, { trials: trials(harvest.pooled.k) }),
         ],
       }
-    : { value: '—', lines: [`${plural(harvest.k, 'trial')} with harvests on both beds of two pairs; pooling needs 2`] };
+    : { value: '—', lines: [t(($) => $.headline.harvestNone, { trials: trials(harvest.k) })] };
 
   const wueStat = wue.pooled
     ? {
         value: pct(wue.pooled.display.estimate, 0, true),
-        lines: [`${conf} % CI ${range(wue.pooled.display.ci, '%')}`, `harvest per litre, pots against surface · ${plural(wue.pooled.k, 'trial')}`],
+        lines: [ci(range(wue.pooled.display.ci, '%')), t(($) => $.headline.perLitre, { trials: trials(wue.pooled.k) })],
       }
-    : { value: '—', lines: [`${plural(wue.k, 'trial')} so far; pooling needs 2`] };
+    : { value: '—', lines: [t(($) => $.headline.soFar, { trials: trials(wue.k) })] };
 
   const harvestSentence = (() => {
     const p = harvest.pooled;
-    if (!p) return 'Harvest cannot be pooled yet: it needs at least 2 trials where every plot of two or more pairs has a harvest record.';
+    if (!p) return t(($) => $.headline.harvestCannot);
     const [lo, hi] = p.display.ci;
     const d = p.display.estimate;
+    const values = { amount: mass(Math.abs(d)), confidence: conf, lo: mass(lo), hi: mass(hi), trials: trials(p.k) };
     return (
-      `Harvest: the pot beds gave ${mass(Math.abs(d))} ${d >= 0 ? 'more' : 'less'} per plant than the surface beds (${conf} % CI ${mass(lo)} to ${mass(hi)}, ${plural(p.k, 'trial')}). ` +
-      (lo > 0
-        ? 'That is clearly more harvest with pots.'
-        : hi < 0
-          ? 'That is clearly less harvest with pots.'
-          : 'The interval includes 0: no clear difference in harvest either way.')
+      `${d >= 0 ? t(($) => $.headline.harvestMore, values) : t(($) => $.headline.harvestLess, values)} ` +
+      (lo > 0 ? t(($) => $.headline.harvestClearlyMore) : hi < 0 ? t(($) => $.headline.harvestClearlyLess) : t(($) => $.headline.harvestUnclear))
     );
   })();
 
   // Which shared trials are not in the water estimate, and why, counted.
   const reasons = new Map<string, number>();
-  for (const t of results.trials) {
-    const why = whyNotPooled(t, 'waterLogRatio', results.options);
+  for (const trial of results.trials) {
+    const why = whyNotPooled(trial, 'waterLogRatio', results.options);
     if (why) reasons.set(why, (reasons.get(why) ?? 0) + 1);
   }
   const inWater = results.trials.length - [...reasons.values()].reduce((a, b) => a + b, 0);
 
   return (
     <Card role="region" aria-labelledby="headline-heading" className="space-y-4">
-      <h3 id="headline-heading">What the pots did, across all gardens</h3>
+      <h3 id="headline-heading">{t(($) => $.headline.heading)}</h3>
       <div className="grid gap-3 sm:grid-cols-3">
-        <Stat label="Water saved by the pots" value={waterStat.value} lines={waterStat.lines} tone="olla" />
-        <Stat label="Harvest per plant, pots − surface" value={harvestStat.value} lines={harvestStat.lines} tone="neutral" />
-        <Stat label="Water-use efficiency change" value={wueStat.value} lines={wueStat.lines} tone="neutral" />
+        <Stat label={t(($) => $.headline.waterLabel)} value={waterStat.value} lines={waterStat.lines} tone="olla" />
+        <Stat label={t(($) => $.headline.harvestLabel)} value={harvestStat.value} lines={harvestStat.lines} tone="neutral" />
+        <Stat label={t(($) => $.headline.wueLabel)} value={wueStat.value} lines={wueStat.lines} tone="neutral" />
       </div>
       <div className="max-w-3xl space-y-2">
         {waterSentences(water, conf).map((s) => (
@@ -120,11 +117,13 @@ export function Headline({ results }: { results: CohortResults }) {
         ))}
         <p>{harvestSentence}</p>
         <p className="text-sm text-ink-muted">
-          {inWater} of {plural(results.trials.length, 'shared trial')} count in the water estimate
+          {t(($) => $.headline.counted, { count: results.trials.length, inWater: String(inWater) })}
           {reasons.size
-            ? `; not counted: ${[...reasons.entries()].map(([why, n]) => `${n} × ${why.charAt(0).toLowerCase()}${why.slice(1)}`).join('; ')}.`
+            ? t(($) => $.headline.notCounted, {
+                reasons: [...reasons.entries()].map(([why, n]) => `${n} × ${why.charAt(0).toLowerCase()}${why.slice(1)}`).join('; '),
+              })
             : '.'}{' '}
-          Results are computed from the records up to {results.asOf}.
+          {t(($) => $.headline.asOf, { date: formatDate(results.asOf) })}
         </p>
       </div>
     </Card>

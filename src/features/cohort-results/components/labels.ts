@@ -2,7 +2,8 @@ import { potMakeLabels, potShapeLabels } from '@shared/schemas/pots';
 import { soilTextureLabels } from '@shared/schemas/gardens';
 import { cropLabel } from '@shared/charts/cohort-charts';
 import type { CohortResults, CohortTrialRow, EffectKey, ModeratorKey, QualityFlag } from '@shared/schemas/cohort-results';
-import { measureLabels, num, plural } from './format';
+import { formatDate } from '@/lib/format';
+import { crT, measureLabel, num, sharedT } from './format';
 
 export const moderatorLabels: Record<ModeratorKey, string> = {
   potCapacity: 'Pot capacity',
@@ -34,7 +35,7 @@ export function levelLabel(moderator: ModeratorKey, level: string): string {
     case 'potMake':
       return potMakeLabels[level as keyof typeof potMakeLabels] ?? level;
     case 'crop':
-      return cropLabel(level);
+      return cropLabel(level, sharedT());
     case 'soilTexture':
       return soilTextureLabels[level as keyof typeof soilTextureLabels] ?? level;
     case 'setting':
@@ -49,53 +50,51 @@ export function soilLabel(texture: string): string {
   return soilTextureLabels[texture as keyof typeof soilTextureLabels] ?? texture;
 }
 
-const seriesWords = { olla_refill: 'pot refills', surface: 'surface waterings' } as const;
-
 /** A quality flag as a short headline and the particulars. */
 export function flagWords(f: QualityFlag): { title: string; details: string[] } {
+  const t = crT();
   switch (f.kind) {
     case 'out-of-line':
       return {
-        title: `Far from the other gardens (${(f.effect ? measureLabels[f.effect] : 'result').toLowerCase()})`,
-        details: [
-          f.robustZ === null
-            ? 'Most trials agree exactly, so any difference stands out.'
-            : `Modified z-score ${num(f.robustZ, 1)} against the cohort’s median (flagged beyond ±3.5).`,
-          'Check the entries and the set-up; a real difference is possible too.',
-        ],
+        title: t(($) => $.flags.outOfLine, { measure: f.effect ? measureLabel(f.effect, true) : t(($) => $.flags.result) }),
+        details: [f.robustZ === null ? t(($) => $.flags.allAgree) : t(($) => $.flags.robustZ, { z: num(f.robustZ, 1) }), t(($) => $.flags.checkEntries)],
       };
     case 'wrong-unit':
       return {
-        title: `Possible gallon / litre mix-up (${plural(f.weeks.length, 'week')})`,
+        title: t(($) => $.flags.wrongUnit, { count: f.weeks.length }),
         details: f.weeks.map(
           (w) =>
-            `Week of ${w.weekStart}, ${seriesWords[w.series]}: ${num(w.litresPerEvent, 1)} L each, ${num(w.ratioToMedian, 2)}× this trial’s usual. ` +
-            (w.kind === 'looks-like-gallons-typed-as-litres' ? 'Looks like gallons typed as litres' : 'Looks like gallons converted to litres twice') +
-            ` (about ${num(w.suggestedLitresPerEvent, 1)} L each if so). Nothing was changed.`,
+            `${t(($) => $.flags.weekLine, { week: formatDate(w.weekStart), series: t(($) => $.flags.series[w.series]), litres: num(w.litresPerEvent, 1), ratio: num(w.ratioToMedian, 2) })} ` +
+            `${w.kind === 'looks-like-gallons-typed-as-litres' ? t(($) => $.flags.typed) : t(($) => $.flags.twice)} ${t(($) => $.flags.ifSo, { litres: num(w.suggestedLitresPerEvent, 1) })}`,
         ),
       };
-    case 'mixed-moisture-methods':
-      return { title: 'Soil moisture read with several methods', details: [f.message] };
+    case 'mixed-moisture-methods': {
+      // The server's message names the methods ("… with 2 methods (vwc, tensiometer); …"); read them back for the reader's language.
+      const methods = /\(([^)]*)\)/.exec(f.message)?.[1];
+      const count = methods ? methods.split(', ').length : 0;
+      return { title: t(($) => $.flags.mixedMoisture), details: [methods ? t(($) => $.flags.mixedMoistureDetail, { count, methods }) : f.message] };
+    }
     case 'closed-without-harvest':
-      return { title: 'Closed without any harvest record', details: ['Harvest and water-use efficiency cannot be worked out for this trial.'] };
+      return { title: t(($) => $.flags.closed), details: [t(($) => $.flags.closedDetail)] };
   }
 }
 
-/** Why a trial is not in a measure's pooled estimate, in words; null when it is in. */
+/** Why a trial is not in a measure's pooled estimate, in words (the reader's language); null when it is in. */
 export function whyNotPooled(t: CohortTrialRow, key: EffectKey, options: CohortResults['options']): string | null {
+  const tr = crT();
   const e = t.effects[key];
   if (e.pooled) return null;
-  if (t.exclusion) return 'Left out by the lead';
-  if (options.excludeFlagged && t.flags.length) return 'Left out: has a quality flag';
+  if (t.exclusion) return tr(($) => $.why.excluded);
+  if (options.excludeFlagged && t.flags.length) return tr(($) => $.why.flagged);
   if (e.pairs === 1 && e.estimate !== null) {
-    return options.includeSinglePairs ? 'Single pair, and no other trial to borrow a variance from' : 'Single pair (not included)';
+    return options.includeSinglePairs ? tr(($) => $.why.singleNoBorrow) : tr(($) => $.why.singleNotIncluded);
   }
-  if (e.pairs >= 2 && e.estimate !== null && e.variance === null) return 'Every pair gave the same value (copied entries?)';
-  if (key !== 'waterLogRatio' && t.completeness.pairsMissingHarvest > 0) return 'Harvest not recorded on every plot of a pair';
-  if (t.pairs === 0) return 'No pair of pot and surface beds';
-  return 'No complete pair with records yet';
+  if (e.pairs >= 2 && e.estimate !== null && e.variance === null) return tr(($) => $.why.sameValue);
+  if (key !== 'waterLogRatio' && t.completeness.pairsMissingHarvest > 0) return tr(($) => $.why.harvestMissing);
+  if (t.pairs === 0) return tr(($) => $.why.noPair);
+  return tr(($) => $.why.noRecords);
 }
 
 export function trialCrop(t: CohortTrialRow): string {
-  return cropLabel(t.crop);
+  return cropLabel(t.crop, sharedT());
 }

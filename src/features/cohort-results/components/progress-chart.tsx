@@ -1,9 +1,11 @@
+import { useTranslation } from 'react-i18next';
 import type { VisualizationSpec } from 'vega-embed';
 import { cohortProgressSpec } from '@shared/charts/cohort-charts';
 import type { CohortResults } from '@shared/schemas/cohort-results';
 import { Chart } from '@/components/charts/chart';
 import { formatDate } from '@/lib/format';
 import { useUnits } from '@/lib/units';
+import { sharedT } from './format';
 
 interface WeekRow {
   weekStart: string;
@@ -15,8 +17,10 @@ interface WeekRow {
 /** Water over the season across the cohort: cumulative per treatment by ISO week, chart and table. */
 export function ProgressChart({ results }: { results: CohortResults }) {
   const units = useUnits();
-  const spec = cohortProgressSpec(results, { units: units.system, width: 'container' });
-  if (!spec) return <p className="text-ink-muted">No water has been logged in the counted trials yet.</p>;
+  const { t } = useTranslation('cohortResults');
+  const st = sharedT();
+  const spec = cohortProgressSpec(results, { units: units.system, width: 'container', t: st });
+  if (!spec) return <p className="text-ink-muted">{t(($) => $.progress.none)}</p>;
 
   const weeks = new Map<string, WeekRow>();
   for (const r of results.progress) {
@@ -32,40 +36,40 @@ export function ProgressChart({ results }: { results: CohortResults }) {
   const byDepth = results.progress.every((r) => r.cumulativeMm !== null);
   const takeaway =
     o && s && byDepth
-      ? `By the week of ${formatDate(rows.at(-1)!.weekStart)}, the pot beds had received ${depth(o.cumulativeMm)} of water against ${depth(s.cumulativeMm)} on the surface-watered beds (litres over each treatment’s total bed area).`
-      : 'Cumulative water per treatment, all counted gardens together.';
+      ? t(($) => $.progress.takeaway, { week: formatDate(rows.at(-1)!.weekStart), olla: depth(o.cumulativeMm), surface: depth(s.cumulativeMm) })
+      : t(($) => $.progress.takeawayPlain);
   // Carry each treatment's running total through weeks in which it logged nothing.
   let lastOlla: WeekRow['olla'];
   let lastSurface: WeekRow['surface'];
 
   return (
     <Chart
-      title="Water applied over the season, all gardens"
+      title={st('charts.cohort.titles.progress')}
       takeaway={takeaway}
       spec={spec as VisualizationSpec}
       fileName="cohort-water-progress"
       alternative={
         <table className="w-full text-sm">
-          <caption className="sr-only">Cumulative water per treatment by week</caption>
+          <caption className="sr-only">{t(($) => $.progress.caption)}</caption>
           <thead className="text-ink-muted">
             <tr>
               <th scope="col" className="py-1 pr-4 text-left font-medium">
-                Week
+                {t(($) => $.progress.week)}
               </th>
               <th scope="col" className="py-1 pr-4 text-right font-medium">
-                Olla, so far
+                {t(($) => $.progress.ollaSoFar)}
               </th>
               <th scope="col" className="py-1 pr-4 text-right font-medium">
-                Surface, so far
+                {t(($) => $.progress.surfaceSoFar)}
               </th>
               <th scope="col" className="py-1 pr-4 text-right font-medium">
-                Olla depth
+                {t(($) => $.progress.ollaDepth)}
               </th>
               <th scope="col" className="py-1 pr-4 text-right font-medium">
-                Surface depth
+                {t(($) => $.progress.surfaceDepth)}
               </th>
               <th scope="col" className="py-1 text-right font-medium">
-                Trials logging (olla / surface)
+                {t(($) => $.progress.trialsLogging)}
               </th>
             </tr>
           </thead>

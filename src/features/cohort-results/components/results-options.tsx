@@ -1,8 +1,9 @@
 import type { ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { effectKeys, type CohortResults, type CohortResultsQuery, type EffectKey } from '@shared/schemas/cohort-results';
 import { Choice, ChoiceGroup } from '@/components/ui/choice-group';
 import type { ResultsOptionsPatch } from '../hooks/use-results-options';
-import { measureHints, measureLabels, plural } from './format';
+import { measureHint, measureLabel } from './format';
 
 function Toggle({ label, hint, checked, onChange }: { label: string; hint: ReactNode; checked: boolean; onChange: (v: boolean) => void }) {
   return (
@@ -28,16 +29,17 @@ export function ResultsOptions({
   results: CohortResults | undefined;
   onChange: (patch: ResultsOptionsPatch) => void;
 }) {
+  const { t } = useTranslation('cohortResults');
   const singles = results?.effects.waterLogRatio.singlePairs.eligible ?? 0;
   const flagged = results?.counts.flagged ?? 0;
   return (
     <div className="grid gap-4 lg:grid-cols-3">
-      <ChoiceGroup legend="Between-garden variance (τ²)">
+      <ChoiceGroup legend={t(($) => $.options.tau)}>
         <Choice
           name="method"
           value="DL"
           label="DerSimonian-Laird"
-          hint="The usual moment estimator."
+          hint={t(($) => $.options.dlHint)}
           checked={query.method === 'DL'}
           onChange={() => onChange({ method: 'DL' })}
         />
@@ -45,39 +47,34 @@ export function ResultsOptions({
           name="method"
           value="REML"
           label="REML"
-          hint="Restricted maximum likelihood; often steadier with few trials."
+          hint={t(($) => $.options.remlHint)}
           checked={query.method === 'REML'}
           onChange={() => onChange({ method: 'REML' })}
         />
       </ChoiceGroup>
       <fieldset className="space-y-2">
-        <legend className="mb-1 block text-sm font-medium text-ink">Which trials count</legend>
+        <legend className="mb-1 block text-sm font-medium text-ink">{t(($) => $.options.which)}</legend>
         <Toggle
-          label="Include single-pair trials"
-          hint={
-            <>
-              {singles ? `${plural(singles, 'trial')} ${singles === 1 ? 'has' : 'have'} one pair. ` : 'No trial has just one pair. '}A single pair has no spread
-              of its own, so it borrows the typical variance of the others: a pragmatic choice, not a published rule.
-            </>
-          }
+          label={t(($) => $.options.singles)}
+          hint={`${singles ? t(($) => $.options.singlesHas, { count: singles }) : t(($) => $.options.singlesNone)} ${t(($) => $.options.singlesHint)}`}
           checked={query.includeSinglePairs}
           onChange={(v) => onChange({ includeSinglePairs: v })}
         />
         <Toggle
-          label="Leave out flagged trials"
-          hint={`${flagged ? `${plural(flagged, 'trial')} ${flagged === 1 ? 'has' : 'have'} a quality flag.` : 'No trial has a quality flag.'} Flags ask for a check; they do not prove an error.`}
+          label={t(($) => $.options.flagged)}
+          hint={`${flagged ? t(($) => $.options.flaggedHas, { count: flagged }) : t(($) => $.options.flaggedNone)} ${t(($) => $.options.flaggedHint)}`}
           checked={query.excludeFlagged}
           onChange={(v) => onChange({ excludeFlagged: v })}
         />
       </fieldset>
-      <ChoiceGroup legend="Details below for">
+      <ChoiceGroup legend={t(($) => $.options.details)}>
         {effectKeys.map((k) => (
           <Choice
             key={k}
             name="measure"
             value={k}
-            label={measureLabels[k]}
-            hint={measureHints[k]}
+            label={measureLabel(k)}
+            hint={measureHint(k)}
             checked={measure === k}
             onChange={() => onChange({ measure: k })}
           />

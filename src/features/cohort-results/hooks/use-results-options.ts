@@ -1,6 +1,12 @@
 import { useCallback, useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { effectKeys, type CohortResultsQuery, type EffectKey } from '@shared/schemas/cohort-results';
+import type { CohortResultsQuery, EffectKey } from '@shared/schemas/cohort-results';
+
+/**
+ * The effect names, checked complete against the schema's type. Not imported as a value: the
+ * router reads this module eagerly, and the schema module would bring zod into the first page.
+ */
+const EFFECTS: Record<EffectKey, true> = { waterLogRatio: true, wueLogRatio: true, harvestPerPlantDiff: true };
 
 /**
  * The results options live in the page address (?method=REML&excludeFlagged=true&measure=…), so
@@ -17,7 +23,7 @@ export function resultsQueryFromSearch(sp: URLSearchParams): CohortResultsQuery 
 
 export function measureFromSearch(sp: URLSearchParams): EffectKey {
   const m = sp.get('measure');
-  return (effectKeys as readonly string[]).includes(m ?? '') ? (m as EffectKey) : 'waterLogRatio';
+  return Object.hasOwn(EFFECTS, m ?? '') ? (m as EffectKey) : 'waterLogRatio';
 }
 
 export interface ResultsOptionsPatch {

@@ -1,11 +1,12 @@
+import { useTranslation } from 'react-i18next';
 import { Link } from 'react-router-dom';
 import type { CohortSummary } from '@shared/schemas/cohorts';
 import { Alert } from '@/components/ui/alert';
 import { Button, buttonVariants } from '@/components/ui/button';
 import { ApiRequestError } from '@/lib/api-client';
+import { fillSlots, SLOT } from '@/lib/slots';
 import { useAcceptInvitation } from '../api/accept-invitation';
 import { useInvitationPreview } from '../api/preview-invitation';
-import { memberRoleHints, memberRoleLabels } from './labels';
 
 interface InvitationPanelProps {
   token: string;
@@ -18,51 +19,51 @@ interface InvitationPanelProps {
 
 /** What an e-mailed invitation offers, and the way to accept it (signing in first if needed). */
 export function InvitationPanel({ token, signedIn, signInHref, signUpHref, onAccepted }: InvitationPanelProps) {
+  const { t, i18n } = useTranslation('cohorts');
   const preview = useInvitationPreview(token);
   const accept = useAcceptInvitation(token);
 
-  if (preview.isPending) return <p role="status">Checking the invitation…</p>;
+  if (preview.isPending) return <p role="status">{t(($) => $.invitation.checking)}</p>;
   if (preview.isError) {
     const notFound = preview.error instanceof ApiRequestError && preview.error.status === 404;
-    return (
-      <Alert tone="error">
-        {notFound
-          ? 'This invitation link is not valid. It may have been copied incompletely; open it again from the e-mail, or ask the cohort lead for a new one.'
-          : `Could not check the invitation: ${preview.error.message}`}
-      </Alert>
-    );
+    return <Alert tone="error">{notFound ? t(($) => $.invitation.invalid) : t(($) => $.invitation.checkFailed, { message: preview.error.message })}</Alert>;
   }
   const inv = preview.data;
+  const role = t(($) => $.roles[inv.role]);
   return (
     <div className="space-y-4">
       <div className="rounded-lg border border-sand-200 bg-sand-50 p-4">
-        <p className="text-sm text-ink-muted">You are invited to</p>
+        <p className="text-sm text-ink-muted">{t(($) => $.invitation.invitedTo)}</p>
         <p className="text-xl font-semibold break-words">{inv.cohortName}</p>
         <p className="mt-1 text-sm">
-          as <span className="font-medium">{memberRoleLabels[inv.role].toLowerCase()}</span> ({memberRoleHints[inv.role].replace('their own', 'your own')}).
+          {fillSlots(t(($) => $.invitation.as, { role: SLOT, hint: t(($) => $.roleHintsYou[inv.role]) }), [
+            <span key="role" className="font-medium">
+              {i18n.resolvedLanguage === 'en' ? role.toLowerCase() : role}
+            </span>,
+          ])}
         </p>
-        <p className="mt-2 text-sm text-ink-muted">Other members will see you under a pseudonym, never your name or e-mail.</p>
+        <p className="mt-2 text-sm text-ink-muted">{t(($) => $.invitation.pseudonymNote)}</p>
       </div>
       {inv.accepted ? (
-        <Alert tone="info">This invitation has already been used. If that was you, the cohort is in your Cohorts list.</Alert>
+        <Alert tone="info">{t(($) => $.invitation.used)}</Alert>
       ) : inv.expired ? (
-        <Alert tone="warning">This invitation has expired. Ask the cohort lead to send a new one, or to give you the join code.</Alert>
+        <Alert tone="warning">{t(($) => $.invitation.expired)}</Alert>
       ) : signedIn ? (
         <div className="space-y-3">
           {accept.isError ? <Alert tone="error">{accept.error.message}</Alert> : null}
           <Button size="lg" className="w-full sm:w-auto" disabled={accept.isPending} onClick={() => accept.mutate(undefined, { onSuccess: onAccepted })}>
-            {accept.isPending ? 'Joining…' : 'Accept and join'}
+            {accept.isPending ? t(($) => $.invitation.accepting) : t(($) => $.invitation.accept)}
           </Button>
         </div>
       ) : (
         <div className="space-y-3">
-          <p>Sign in with the address the invitation was sent to, or create an account with it, to accept.</p>
+          <p>{t(($) => $.invitation.signInNote)}</p>
           <div className="flex flex-col gap-2 sm:flex-row">
             <Link to={signInHref} className={buttonVariants({ size: 'lg' })}>
-              Sign in to accept
+              {t(($) => $.invitation.signIn)}
             </Link>
             <Link to={signUpHref} className={buttonVariants({ variant: 'secondary', size: 'lg' })}>
-              Create an account
+              {t(($) => $.invitation.signUp)}
             </Link>
           </div>
         </div>

@@ -1,51 +1,55 @@
+import { useTranslation } from 'react-i18next';
 import { Alert } from '@/components/ui/alert';
 import { ConfirmAction } from '@/components/ui/confirm-dialog';
 import { formatDate } from '@/lib/format';
 import { useCohortMembers } from '../api/get-cohort-members';
 import { useRemoveMember } from '../api/remove-member';
-import { memberRoleHints, memberRoleLabels } from './labels';
 
 /** Members by pseudonym and role. The lead may remove a member after confirming. */
 export function MembersList({ cohortId, canRemove }: { cohortId: string; canRemove: boolean }) {
+  const { t } = useTranslation('cohorts');
+  const { t: tc } = useTranslation();
   const members = useCohortMembers(cohortId);
   const remove = useRemoveMember(cohortId);
-  if (members.isPending) return <p role="status" className="text-ink-muted">Loading members…</p>;
-  if (members.isError) return <Alert tone="error">Could not load the members: {members.error.message}</Alert>;
+  if (members.isPending) return <p role="status" className="text-ink-muted">{t(($) => $.members.loading)}</p>;
+  if (members.isError) return <Alert tone="error">{t(($) => $.members.loadFailed, { message: members.error.message })}</Alert>;
   if (members.data.length === 0) {
-    return <p className="text-ink-muted">No members yet. {canRemove ? 'Share the join code or send an invitation to bring people in.' : ''}</p>;
+    return <p className="text-ink-muted">{canRemove ? t(($) => $.members.noneLead) : t(($) => $.members.none)}</p>;
   }
   const contributors = members.data.filter((m) => m.role === 'contributor').length;
+  const observers = members.data.length - contributors;
   return (
     <div className="space-y-3">
       <p className="text-sm text-ink-muted">
-        {contributors} contributor{contributors === 1 ? '' : 's'}, {members.data.length - contributors} observer{members.data.length - contributors === 1 ? '' : 's'}.
+        {t(($) => $.members.counts, {
+          contributors: t(($) => $.members.contributors, { count: contributors }),
+          observers: t(($) => $.members.observers, { count: observers }),
+        })}
       </p>
-      <ul className="divide-y divide-sand-200 rounded-lg border border-sand-200" aria-label="Members">
+      <ul className="divide-y divide-sand-200 rounded-lg border border-sand-200" aria-label={t(($) => $.members.label)}>
         {members.data.map((m) => (
           <li key={m.id} className="flex flex-wrap items-center gap-x-4 gap-y-2 px-3 py-3">
             <div className="min-w-0 flex-1">
               <p className="font-medium">
                 {m.pseudonym}
-                {m.isMe ? <span className="ml-2 rounded bg-terracotta-50 px-1.5 py-0.5 text-xs font-medium text-terracotta-800">you</span> : null}
+                {m.isMe ? <span className="ml-2 rounded bg-terracotta-50 px-1.5 py-0.5 text-xs font-medium text-terracotta-800">{tc(($) => $.you)}</span> : null}
               </p>
               <p className="text-sm text-ink-muted">
-                {memberRoleLabels[m.role]}: {memberRoleHints[m.role]} · joined {formatDate(m.joinedAt)}
+                {t(($) => $.members.line, { role: t(($) => $.roles[m.role]), hint: t(($) => $.roleHints[m.role]), date: formatDate(m.joinedAt) })}
               </p>
             </div>
             {canRemove ? (
               <ConfirmAction
-                label="Remove"
-                ariaLabel={`Remove ${m.pseudonym}`}
+                label={t(($) => $.members.remove)}
+                ariaLabel={t(($) => $.members.removeLabel, { name: m.pseudonym })}
                 buttonProps={{ size: 'md', className: 'min-w-24' }}
-                title={`Remove ${m.pseudonym}?`}
-                confirmLabel="Remove member"
+                title={t(($) => $.members.removeTitle, { name: m.pseudonym })}
+                confirmLabel={t(($) => $.members.removeConfirm)}
                 tone="danger"
                 onConfirm={() => remove.mutateAsync(m.id)}
               >
-                <p>
-                  {m.pseudonym} leaves the cohort at once and no longer sees it. {m.role === 'contributor' ? 'Their trials stop counting in the pooled result.' : ''}
-                </p>
-                <p>They can come back only with the join code or a new invitation. If they know the current code, make a new one too.</p>
+                <p>{m.role === 'contributor' ? t(($) => $.members.removeBodyContributor, { name: m.pseudonym }) : t(($) => $.members.removeBody, { name: m.pseudonym })}</p>
+                <p>{t(($) => $.members.removeBody2)}</p>
               </ConfirmAction>
             ) : null}
           </li>

@@ -1,6 +1,6 @@
+import { useTranslation } from 'react-i18next';
 import type { CohortSummary } from '@shared/schemas/cohorts';
 import { cn } from '@/lib/utils';
-import { myRoleLabels } from './labels';
 
 const tones: Record<CohortSummary['myRole'], string> = {
   lead: 'bg-terracotta-50 text-terracotta-800 border-terracotta-200',
@@ -9,9 +9,11 @@ const tones: Record<CohortSummary['myRole'], string> = {
 };
 
 export function RoleBadge({ role, className }: { role: CohortSummary['myRole']; className?: string }) {
-  return <span className={cn('inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium', tones[role], className)}>{myRoleLabels[role]}</span>;
+  const { t } = useTranslation('cohorts');
+  return <span className={cn('inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium', tones[role], className)}>{t(($) => $.roles[role])}</span>;
 }
 
 export function ClosedBadge() {
-  return <span className="inline-flex items-center rounded-full border border-amber-300 bg-amber-50 px-2 py-0.5 text-xs font-medium text-amber-900">Closed to new members</span>;
+  const { t } = useTranslation('cohorts');
+  return <span className="inline-flex items-center rounded-full border border-amber-300 bg-amber-50 px-2 py-0.5 text-xs font-medium text-amber-900">{t(($) => $.closedBadge)}</span>;
 }

@@ -1,20 +1,31 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import { z } from 'zod';
-import { gardenInputSchema, soilTextureLabels, soilTextures, type CreateGardenInput, type Garden } from '@shared/schemas/gardens';
+import { gardenInputSchema, soilTextures, type CreateGardenInput, type Garden } from '@shared/schemas/gardens';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField, TextareaField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/form-errors';
+import { decimalOrUndefined } from '@/lib/parse-number';
 import { useUnits } from '@/lib/units';
+import { useGardenMessages } from './schema-messages';
 
-/** The form holds elevation in the reader's unit; the schema's SI value is built on submit. */
-const formSchema = gardenInputSchema.extend({ elevationM: z.number({ message: 'Enter the elevation.' }) });
-type FormValues = z.input<typeof formSchema>;
+/** The form holds elevation in the reader's unit; the schema's SI value is built on submit. Decimals may be typed with a comma. */
+const makeFormSchema = (required: string, notNumber: string) =>
+  gardenInputSchema.extend({
+    latitudeDeg: z.number({ message: notNumber }).pipe(gardenInputSchema.shape.latitudeDeg),
+    longitudeDeg: z.number({ message: notNumber }).pipe(gardenInputSchema.shape.longitudeDeg),
+    elevationM: z.number({ error: (iss) => (iss.input === undefined ? required : notNumber) }),
+  });
+type FormValues = z.input<ReturnType<typeof makeFormSchema>>;
 
 export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden; onSubmit: (input: CreateGardenInput) => Promise<unknown>; submitLabel: string }) {
   const units = useUnits();
+  const { t } = useTranslation('gardens');
+  const m = useGardenMessages();
+  const formSchema = useMemo(() => makeFormSchema(t(($) => $.form.elevationRequired), t(($) => $.form.notANumber)), [t]);
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
@@ -35,31 +46,31 @@ export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden;
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-label={submitLabel}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      <InputField label="Garden name" {...register('name')} error={e.name?.message} />
+      <InputField label={t(($) => $.form.name)} {...register('name')} error={m(e.name?.message)} />
       <div className="grid gap-4 sm:grid-cols-3">
-        <InputField label="Latitude (°, north +)" inputMode="decimal" {...register('latitudeDeg', { valueAsNumber: true })} error={e.latitudeDeg?.message} />
-        <InputField label="Longitude (°, east +)" inputMode="decimal" {...register('longitudeDeg', { valueAsNumber: true })} error={e.longitudeDeg?.message} />
-        <InputField label={`Elevation (${units.label('length')})`} inputMode="decimal" {...register('elevationM', { valueAsNumber: true })} error={e.elevationM?.message} />
+        <InputField label={t(($) => $.form.latitude)} inputMode="decimal" {...register('latitudeDeg', { setValueAs: decimalOrUndefined })} error={m(e.latitudeDeg?.message)} />
+        <InputField label={t(($) => $.form.longitude)} inputMode="decimal" {...register('longitudeDeg', { setValueAs: decimalOrUndefined })} error={m(e.longitudeDeg?.message)} />
+        <InputField label={t(($) => $.form.elevation, { unit: units.label('length') })} inputMode="decimal" {...register('elevationM', { setValueAs: decimalOrUndefined })} error={m(e.elevationM?.message)} />
       </div>
       <p className="text-sm text-ink-muted">
-        Seepwise keeps the location only to 0.1° (about 11 km): enough for the sun and the season in the water-need sums, not enough to find your garden.
+        {t(($) => $.form.privacy)}
       </p>
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="Soil texture (USDA class)" {...register('soilTexture')} error={e.soilTexture?.message}>
+        <SelectField label={t(($) => $.form.soil)} {...register('soilTexture')} error={m(e.soilTexture?.message)}>
           {soilTextures.map((s) => (
             <option key={s} value={s}>
-              {soilTextureLabels[s]}
+              {t(($) => $.soil[s])}
             </option>
           ))}
         </SelectField>
         <label className="flex min-h-12 items-center gap-3 self-end rounded-lg border border-sand-300 bg-white px-3">
           <input type="checkbox" className="size-4 accent-terracotta-600" {...register('coastal')} />
-          <span className="text-sm">Near the coast (changes the radiation estimate when sunshine is not logged)</span>
+          <span className="text-sm">{t(($) => $.form.coastal)}</span>
         </label>
       </div>
-      <TextareaField label="Notes" {...register('notes')} error={e.notes?.message} />
+      <TextareaField label={t(($) => $.form.notes)} {...register('notes')} error={m(e.notes?.message)} />
       <Button type="submit" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Saving…' : submitLabel}
+        {formState.isSubmitting ? t(($) => $.form.saving) : submitLabel}
       </Button>
     </form>
   );

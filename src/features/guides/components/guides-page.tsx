@@ -1,30 +1,13 @@
+import { useTranslation } from 'react-i18next';
 import { cautions, type Language } from '@shared/content/cautions';
 import { cautionAnchor, guides, type GuideBlock } from '@shared/content/guides';
 import { CautionNote } from './caution-note';
-
-const pageText: Record<Language, { title: string; intro: string; contents: string; backToContents: string; seeAlso: string }> = {
-  en: {
-    title: 'Guides',
-    intro:
-      'How to run a trial that gives an honest answer, how to choose, test and place your pots, and how to look after them safely. Rules of thumb are marked as such; your own measurements always win.',
-    contents: 'On this page',
-    backToContents: 'Back to contents',
-    seeAlso: 'See the caution:',
-  },
-  es: {
-    title: 'Guías',
-    intro:
-      'Cómo hacer un ensayo que dé una respuesta honesta, cómo elegir, probar y colocar tus ollas, y cómo cuidarlas con seguridad. Las reglas prácticas están señaladas como tales; tus propias mediciones siempre mandan.',
-    contents: 'En esta página',
-    backToContents: 'Volver al índice',
-    seeAlso: 'Mira la precaución:',
-  },
-};
 
 const TOC_ID = 'guides-contents';
 const linkClass = 'text-terracotta-700 underline underline-offset-2 hover:text-terracotta-800';
 
 function Block({ block, lang }: { block: GuideBlock; lang: Language }) {
+  const { t } = useTranslation('guides', { lng: lang });
   switch (block.kind) {
     case 'paragraph':
       return <p>{block.text[lang]}</p>;
@@ -46,7 +29,7 @@ function Block({ block, lang }: { block: GuideBlock; lang: Language }) {
     case 'seeCautions':
       return (
         <p className="text-sm text-ink-muted">
-          {pageText[lang].seeAlso}{' '}
+          {t(($) => $.seeAlso)}{' '}
           {block.cautionIds.map((id, index) => (
             <span key={id}>
               {index > 0 && ', '}
@@ -62,22 +45,25 @@ function Block({ block, lang }: { block: GuideBlock; lang: Language }) {
 }
 
 export interface GuidesPageProps {
+  /** Defaults to the screen's language (src/i18n); the guides' own texts are in shared/content. */
   lang?: Language;
 }
 
 /** The Guides: fair trials; choosing, placing and caring for pots; cautions. */
-export function GuidesPage({ lang = 'en' }: GuidesPageProps) {
-  const text = pageText[lang];
+export function GuidesPage({ lang: langProp }: GuidesPageProps) {
+  const { i18n } = useTranslation();
+  const lang: Language = langProp ?? (i18n.resolvedLanguage === 'es' ? 'es' : 'en');
+  const { t } = useTranslation('guides', { lng: lang });
   return (
     <article lang={lang} aria-labelledby="guides-title" className="mx-auto max-w-prose space-y-10 pb-16 leading-relaxed">
       <header>
-        <h1 id="guides-title">{text.title}</h1>
-        <p className="mt-2 text-ink-muted">{text.intro}</p>
+        <h1 id="guides-title">{t(($) => $.title)}</h1>
+        <p className="mt-2 text-ink-muted">{t(($) => $.intro)}</p>
       </header>
 
       <nav aria-labelledby={TOC_ID} className="rounded-card border border-sand-200 bg-white p-5 shadow-sm">
         <h2 id={TOC_ID} className="scroll-mt-6 text-base">
-          {text.contents}
+          {t(($) => $.contents)}
         </h2>
         <ol role="list" className="mt-3 space-y-3">
           {guides.map((guide) => (
@@ -119,7 +105,7 @@ export function GuidesPage({ lang = 'en' }: GuidesPageProps) {
           ))}
           <p className="text-sm">
             <a className={linkClass} href={`#${TOC_ID}`}>
-              {text.backToContents}
+              {t(($) => $.backToContents)}
             </a>
           </p>
         </section>

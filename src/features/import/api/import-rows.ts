@@ -1,5 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import type { ImportKind, NormalisedRow, RowError } from '@shared/import/csv-import';
+import { i18n } from '@/i18n';
 import { ApiRequestError, getCsrfToken } from '@/lib/api-client';
 import { queryRoots } from '@/lib/query-roots';
 
@@ -14,6 +15,7 @@ export interface ImportResult {
  * writes every row or none; its row errors come back in `details.rows`.
  */
 export function sendImport(trialId: string, kind: ImportKind, rows: NormalisedRow[], fileName: string, onProgress: (fraction: number) => void): Promise<ImportResult> {
+  const t = i18n.getFixedT(null, 'import');
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', `/api/trials/${trialId}/import`);
@@ -22,7 +24,7 @@ export function sendImport(trialId: string, kind: ImportKind, rows: NormalisedRo
     const token = getCsrfToken();
     if (token) xhr.setRequestHeader('X-CSRF-Token', token);
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
-    xhr.onerror = () => reject(new ApiRequestError(0, 'network_error', 'The connection dropped while sending. Nothing was imported; try again.'));
+    xhr.onerror = () => reject(new ApiRequestError(0, 'network_error', t(($) => $.connectionDropped)));
     xhr.onload = () => {
       let body: { data?: ImportResult; error?: { code: string; message: string; details?: unknown } } = {};
       try {
@@ -31,7 +33,7 @@ export function sendImport(trialId: string, kind: ImportKind, rows: NormalisedRo
         /* not JSON */
       }
       if (xhr.status >= 200 && xhr.status < 300 && body.data) resolve(body.data);
-      else reject(new ApiRequestError(xhr.status, body.error?.code ?? 'http_error', body.error?.message ?? `Import failed (${xhr.status}).`, body.error?.details));
+      else reject(new ApiRequestError(xhr.status, body.error?.code ?? 'http_error', body.error?.message ?? t(($) => $.failedStatus, { status: xhr.status }), body.error?.details));
     };
     xhr.send(JSON.stringify({ kind, fileName, rows }));
   });

@@ -1,4 +1,6 @@
+import type { TFunction } from 'i18next';
 import { useEffect, useMemo, useRef, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import {
   detectDateFormat,
   guessMapping,
@@ -14,26 +16,71 @@ import {
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
+import { formatDate, formatNumber } from '@/lib/format';
+import type importEn from '@/locales/en/import.json';
 import { sendImport, serverRowErrors, useAfterImport, type ImportResult } from '../api/import-rows';
-import type { WorkerMessage } from '../worker/parse-csv.worker';
+import type { WorkerMessage, WorkerWarning } from '../worker/parse-csv.worker';
 
 export const MAX_FILE_BYTES = 50 * 1024 * 1024;
 
-const kindLabels: Record<ImportKind, string> = {
-  'water-events': 'Water (refills and surface watering)',
-  'moisture-readings': 'Soil moisture readings',
-  harvests: 'Harvests',
-  'weather-days': 'Weather days',
-};
+type FieldKey = keyof (typeof importEn)['fields'];
+type LowerKey = keyof (typeof importEn)['fieldsLower'];
 
-const dateFormatLabels: Record<DateFormat, string> = { iso: 'Year-month-day (2027-04-03)', dmy: 'Day/month/year (03/04/2027 = 3 April)', mdy: 'Month/day/year (03/04/2027 = 4 March)' };
+/** A field of shared/import in the reader's language, by its key (the shared English label when we have no words for it). */
+function fieldLabel(t: TFunction<'import'>, key: string, fallback: string): string {
+  const k = key as FieldKey;
+  return k in fieldKeys ? t(($) => $.fields[k]) : fallback;
+}
+const fieldKeys: Record<FieldKey, true> = {
+  plotLabel: true, occurredAt: true, takenAt: true, kind: true, volumeL: true, source: true, fertiliser: true, notes: true, method: true, depthCm: true, value: true,
+  harvestedOn: true, freshKg: true, marketableKg: true, count: true, day: true, tMinC: true, tMaxC: true, rainMm: true, rhMinPct: true, rhMaxPct: true,
+  windSpeedMs: true, sunshineHours: true,
+};
+const lowerKeys: Record<LowerKey, true> = { volumeL: true, freshKg: true, marketableKg: true, tMinC: true, tMaxC: true, rainMm: true };
+
+/** A row problem in the reader's language: by its code (shared/import, the server), else the English reason as sent. */
+export function rowErrorText(t: TFunction<'import'>, e: RowError): string {
+  const p = e.params ?? {};
+  const value = String(p.value ?? '');
+  const field = fieldLabel(t, String(p.field ?? ''), e.column);
+  switch (e.code) {
+    case 'missingColumn':
+      return t(($) => $.rowErrors.missingColumn, { field });
+    case 'fieldCount':
+      return t(($) => $.rowErrors.fieldCount, { count: Number(p.count), expected: Number(p.expected) });
+    case 'empty':
+      return t(($) => $.rowErrors.empty, { field });
+    case 'notBoolean':
+      return t(($) => $.rowErrors.notBoolean, { value });
+    case 'notNumber':
+      return t(($) => $.rowErrors.notNumber, { value });
+    case 'notWholeNumber':
+      return t(($) => $.rowErrors.notWholeNumber, { value });
+    case 'notDate':
+      return t(($) => $.rowErrors.notDate, { value });
+    case 'notDateTime':
+      return t(($) => $.rowErrors.notDateTime, { value });
+    case 'unknownPlot':
+      return t(($) => $.rowErrors.unknownPlot, { plot: String(p.plot ?? ''), plots: String(p.plots ?? '') });
+    case 'outsideTrial':
+      return t(($) => $.rowErrors.outsideTrial, {
+        day: formatDate(String(p.day ?? '')),
+        planted: formatDate(String(p.planted ?? '')),
+        ends: p.ends ? t(($) => $.rowErrors.ends, { date: formatDate(String(p.ends)) }) : '',
+      });
+    default:
+      return e.reason;
+  }
+}
+
+const warningText = (t: TFunction<'import'>, w: WorkerWarning) => (w === 'oneColumn' ? t(($) => $.oneColumn) : w);
 
 interface Parsed {
   fileName: string;
   headers: string[];
   rows: string[][];
   encoding: string;
-  warnings: string[];
+  warnings: WorkerWarning[];
 }
 
 function Progress({ label, fraction }: { label: string; fraction: number }) {
@@ -52,26 +99,33 @@ function Progress({ label, fraction }: { label: string; fraction: number }) {
 }
 
 function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
+  const { t } = useTranslation('import');
   return (
     <div className="max-h-72 overflow-auto rounded-card border border-red-200 bg-white">
       <table className="w-full text-sm">
         <caption className="px-3 pt-2 text-left font-semibold text-red-900">
-          {total} problem{total === 1 ? '' : 's'}
-          {total > errors.length ? ` (first ${errors.length} shown)` : ''}
+          {t(($) => $.problems, { count: total })}
+          {total > errors.length ? t(($) => $.firstShown, { n: formatNumber(errors.length, 0) }) : ''}
         </caption>
         <thead className="text-left text-ink-muted">
           <tr>
-            <th scope="col" className="px-3 py-1">Line</th>
-            <th scope="col" className="px-3 py-1">Column</th>
-            <th scope="col" className="px-3 py-1">Problem</th>
+            <th scope="col" className="px-3 py-1">
+              {t(($) => $.line)}
+            </th>
+            <th scope="col" className="px-3 py-1">
+              {t(($) => $.column)}
+            </th>
+            <th scope="col" className="px-3 py-1">
+              {t(($) => $.problem)}
+            </th>
           </tr>
         </thead>
         <tbody>
           {errors.map((e, i) => (
             <tr key={i} className="border-t border-sand-100">
               <td className="num px-3 py-1">{e.line}</td>
-              <td className="px-3 py-1">{e.column || '—'}</td>
-              <td className="px-3 py-1">{e.reason}</td>
+              <td className="px-3 py-1">{(e.code === 'missingColumn' ? fieldLabel(t, String(e.params?.field ?? ''), e.column) : e.column) || '—'}</td>
+              <td className="px-3 py-1">{rowErrorText(t, e)}</td>
             </tr>
           ))}
         </tbody>
@@ -86,6 +140,7 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
  * server. Nothing is written until the whole file is valid.
  */
 export function ImportWizard({ trialId, userId }: { trialId: string; userId: string }) {
+  const { t } = useTranslation('import');
   const [kind, setKind] = useState<ImportKind>('water-events');
   const [parseProgress, setParseProgress] = useState<number | null>(null);
   const [sendProgress, setSendProgress] = useState<number | null>(null);
@@ -126,15 +181,16 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
   const onFile = (file: File | undefined) => {
     reset();
     if (!file) return;
-    if (file.size === 0) return setMessage({ tone: 'error', text: 'The file is empty.' });
-    if (file.size > MAX_FILE_BYTES) return setMessage({ tone: 'error', text: `The file is ${(file.size / 1048576).toFixed(0)} MB; files up to 50 MB can be imported. Split it by month or by plot.` });
+    if (file.size === 0) return setMessage({ tone: 'error', text: t(($) => $.fileEmpty) });
+    if (file.size > MAX_FILE_BYTES) return setMessage({ tone: 'error', text: t(($) => $.tooBig, { size: formatNumber(file.size / 1048576, 0) }) });
     setParseProgress(0);
     const worker = new Worker(new URL('../worker/parse-csv.worker.ts', import.meta.url), { type: 'module' });
     worker.onmessage = (ev: MessageEvent<WorkerMessage>) => {
       const m = ev.data;
       if (m.type === 'progress') setParseProgress(m.fraction);
       else if (m.type === 'error') {
-        setMessage({ tone: 'error', text: m.message });
+        const e = m.error;
+        setMessage({ tone: 'error', text: e.code === 'unreadable' ? t(($) => $.unreadable, { detail: e.detail }) : e.code === 'noHeader' ? t(($) => $.noHeader) : t(($) => $.fileEmpty) });
         setParseProgress(null);
         worker.terminate();
       } else {
@@ -153,11 +209,11 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
         for (const f of importFields[kind]) if (f.quantity && next[f.key] !== undefined) u[f.key] = guessUnit(m.headers[next[f.key]!] ?? '', f.quantity);
         setUnits(u);
         const mapped = Object.values(next).filter((v) => v !== undefined).length;
-        if (mapped === 0) setMessage({ tone: 'warning', text: 'None of the column names matched. Choose which column holds what below.' });
+        if (mapped === 0) setMessage({ tone: 'warning', text: t(($) => $.noMatch) });
       }
     };
     worker.onerror = () => {
-      setMessage({ tone: 'error', text: 'The file could not be parsed.' });
+      setMessage({ tone: 'error', text: t(($) => $.unparsable) });
       setParseProgress(null);
     };
     worker.postMessage({ file });
@@ -189,14 +245,11 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
 
   return (
     <section aria-labelledby="import-heading" className="space-y-4 rounded-card border border-sand-200 bg-white p-4">
-      <h2 id="import-heading">Import from a CSV file</h2>
-      <p className="text-sm text-ink-muted">
-        From a spreadsheet or a soil-moisture logger. Seepwise checks every row first; if any row has a problem nothing is imported, and the list tells you
-        which line and column to fix. Importing the same file twice adds nothing.
-      </p>
+      <h2 id="import-heading">{t(($) => $.title)}</h2>
+      <p className="text-sm text-ink-muted">{t(($) => $.intro)}</p>
       <div className="grid gap-3 sm:grid-cols-2">
         <SelectField
-          label="What the file holds"
+          label={t(($) => $.kind)}
           value={kind}
           onChange={(e) => {
             setKind(e.target.value as ImportKind);
@@ -206,13 +259,13 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
         >
           {importKinds.map((k) => (
             <option key={k} value={k}>
-              {kindLabels[k]}
+              {t(($) => $.kinds[k])}
             </option>
           ))}
         </SelectField>
         <div className="space-y-1">
           <label htmlFor="import-file" className="block text-sm font-medium">
-            CSV file (up to 50 MB)
+            {t(($) => $.file)}
           </label>
           <input
             id="import-file"
@@ -224,39 +277,47 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           />
         </div>
       </div>
-      {parseProgress !== null && !parsed ? <Progress label="Reading the file" fraction={parseProgress} /> : null}
+      {parseProgress !== null && !parsed ? <Progress label={t(($) => $.reading)} fraction={parseProgress} /> : null}
       {message ? <Alert tone={message.tone}>{message.text}</Alert> : null}
       {parsed ? (
         <div className="space-y-4">
           <p className="text-sm">
-            <strong>{parsed.fileName}</strong>: {parsed.rows.length.toLocaleString()} rows, {parsed.headers.length} columns
-            {parsed.encoding !== 'utf-8' ? ' — read as Latin-1 (Windows-1252) because it is not UTF-8; check accented names in the preview.' : '.'}
+            <strong>{parsed.fileName}</strong>: {t(($) => $.summary, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
+            {parsed.encoding !== 'utf-8' ? t(($) => $.latin1) : '.'}
           </p>
           {parsed.warnings.map((w) => (
             <Alert key={w} tone="warning">
-              {w}
+              {warningText(t, w)}
             </Alert>
           ))}
           <fieldset className="grid gap-3 sm:grid-cols-3">
-            <legend className="mb-2 text-base font-semibold">Which column holds what</legend>
+            <legend className="mb-2 text-base font-semibold">{t(($) => $.mapping)}</legend>
             {fields.map((f) => (
               <div key={f.key} className="space-y-1">
                 <SelectField
-                  label={`${f.label}${f.required ? ' *' : ''}`}
+                  label={`${fieldLabel(t, f.key, f.label)}${f.required ? ' *' : ''}`}
                   value={mapping[f.key] === undefined ? '' : String(mapping[f.key])}
                   onChange={(e) => setMapping((m) => ({ ...m, [f.key]: e.target.value === '' ? undefined : Number(e.target.value) }))}
                 >
-                  <option value="">— not in this file —</option>
+                  <option value="">{t(($) => $.notInFile)}</option>
                   {parsed.headers.map((h, i) => (
                     <option key={i} value={i}>
-                      {h || `(column ${i + 1})`}
+                      {h || t(($) => $.columnN, { n: i + 1 })}
                     </option>
                   ))}
                 </SelectField>
                 {f.quantity && mapping[f.key] !== undefined ? (
-                  <SelectField label={`Unit of ${f.label.toLowerCase()}`} value={units[f.key] ?? 'metric'} onChange={(e) => setUnits((u) => ({ ...u, [f.key]: e.target.value as 'metric' | 'us' }))}>
-                    <option value="metric">{f.quantity === 'volume' ? 'litres' : f.quantity === 'mass' ? 'kilograms' : f.quantity === 'temperature' ? '°C' : 'mm'}</option>
-                    <option value="us">{f.quantity === 'volume' ? 'US gallons' : f.quantity === 'mass' ? 'pounds' : f.quantity === 'temperature' ? '°F' : 'inches'}</option>
+                  <SelectField
+                    label={t(($) => $.unitOf, { field: f.key in lowerKeys ? t(($) => $.fieldsLower[f.key as LowerKey]) : f.label.toLowerCase() })}
+                    value={units[f.key] ?? 'metric'}
+                    onChange={(e) => setUnits((u) => ({ ...u, [f.key]: e.target.value as 'metric' | 'us' }))}
+                  >
+                    <option value="metric">
+                      {f.quantity === 'volume' ? t(($) => $.units.litres) : f.quantity === 'mass' ? t(($) => $.units.kilograms) : f.quantity === 'temperature' ? '°C' : t(($) => $.units.mm)}
+                    </option>
+                    <option value="us">
+                      {f.quantity === 'volume' ? t(($) => $.units.usGallons) : f.quantity === 'mass' ? t(($) => $.units.pounds) : f.quantity === 'temperature' ? '°F' : t(($) => $.units.inches)}
+                    </option>
                   </SelectField>
                 ) : null}
               </div>
@@ -264,18 +325,18 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           </fieldset>
           {detection ? (
             detection.candidates.length === 0 ? (
-              <Alert tone="error">The dates in column “{parsed.headers[mapping[dateField.key]!]}” match none of the formats Seepwise reads (2027-04-03, 03/04/2027).</Alert>
+              <Alert tone="error">{t(($) => $.noDateFormat, { column: parsed.headers[mapping[dateField.key]!] ?? '' })}</Alert>
             ) : (
               <SelectField
-                label="Date format"
+                label={t(($) => $.dateFormat)}
                 value={dateFormat}
-                hint={detection.ambiguous ? 'Every date here could be day-first or month-first (like 03/04/2027). Choose which your file uses.' : `Detected: ${dateFormatLabels[detection.format!]}.`}
+                hint={detection.ambiguous ? t(($) => $.ambiguous) : t(($) => $.detected, { format: t(($) => $.dateFormats[detection.format!]) })}
                 onChange={(e) => setDateFormat(e.target.value as DateFormat)}
               >
-                <option value="">Choose…</option>
+                <option value="">{t(($) => $.choose)}</option>
                 {detection.candidates.map((f) => (
                   <option key={f} value={f}>
-                    {dateFormatLabels[f]}
+                    {t(($) => $.dateFormats[f])}
                   </option>
                 ))}
               </SelectField>
@@ -286,17 +347,19 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               {normalised.errors.length ? (
                 <ErrorList errors={normalised.errors.slice(0, 300)} total={normalised.errors.length} />
               ) : (
-                <Alert tone="success">All {normalised.records.length.toLocaleString()} rows are ready to import.</Alert>
+                <Alert tone="success">{t(($) => $.allReady, { rows: formatNumber(normalised.records.length, 0) })}</Alert>
               )}
-              <div className="overflow-x-auto">
+              <div className="relative overflow-x-auto">
                 <table className="w-full text-sm">
-                  <caption className="text-left font-semibold">Preview (first 10 rows, as they will be stored)</caption>
+                  <caption className="text-left font-semibold">{t(($) => $.preview)}</caption>
                   <thead className="bg-sand-100 text-left">
                     <tr>
-                      <th scope="col" className="px-2 py-1">Line</th>
+                      <th scope="col" className="px-2 py-1">
+                        {t(($) => $.line)}
+                      </th>
                       {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
                         <th key={f.key} scope="col" className="px-2 py-1">
-                          {f.label}
+                          {fieldLabel(t, f.key, f.label)}
                           {f.quantity ? ` (${f.quantity === 'volume' ? 'L' : f.quantity === 'mass' ? 'kg' : f.quantity === 'temperature' ? '°C' : 'mm'})` : ''}
                         </th>
                       ))}
@@ -308,7 +371,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
                         <td className="num px-2 py-1">{r.line}</td>
                         {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
                           <td key={f.key} className="px-2 py-1">
-                            {r[f.key] === undefined || r[f.key] === null ? '—' : typeof r[f.key] === 'number' ? Number((r[f.key] as number).toFixed(3)) : String(r[f.key])}
+                            {r[f.key] === undefined || r[f.key] === null ? '—' : typeof r[f.key] === 'number' ? formatNumber(r[f.key] as number, 3) : String(r[f.key])}
                           </td>
                         ))}
                       </tr>
@@ -318,16 +381,16 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               </div>
             </>
           ) : null}
-          {sendProgress !== null ? <Progress label="Sending" fraction={sendProgress} /> : null}
+          {sendProgress !== null ? <Progress label={t(($) => $.sending)} fraction={sendProgress} /> : null}
           {serverErrors ? <ErrorList errors={serverErrors.rows} total={serverErrors.total} /> : null}
           {result ? (
             <Alert tone="success">
-              Imported {result.inserted.toLocaleString()} record{result.inserted === 1 ? '' : 's'}
-              {result.alreadyImported ? `; ${result.alreadyImported.toLocaleString()} were already imported and were skipped` : ''}.
+              {t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
+              {result.alreadyImported ? t(($) => $.skipped, { n: formatNumber(result.alreadyImported, 0) }) : ''}.
             </Alert>
           ) : null}
           <Button onClick={() => void send()} disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}>
-            Import {normalised?.records.length ? normalised.records.length.toLocaleString() : ''} rows
+            {normalised?.records.length ? t(($) => $.importRows, { n: formatNumber(normalised.records.length, 0) }) : t(($) => $.importNone)}
           </Button>
         </div>
       ) : null}

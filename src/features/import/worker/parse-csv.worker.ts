@@ -5,10 +5,14 @@
  */
 import Papa from 'papaparse';
 
+/** Problems and warnings travel as codes; the wizard words them in the reader's language (`import` namespace). */
+export type WorkerError = { code: 'fileEmpty' | 'noHeader' } | { code: 'unreadable'; detail: string };
+export type WorkerWarning = 'oneColumn';
+
 export type WorkerMessage =
   | { type: 'progress'; fraction: number }
-  | { type: 'done'; headers: string[]; rows: string[][]; encoding: 'utf-8' | 'windows-1252'; delimiter: string; warnings: string[] }
-  | { type: 'error'; message: string };
+  | { type: 'done'; headers: string[]; rows: string[][]; encoding: 'utf-8' | 'windows-1252'; delimiter: string; warnings: WorkerWarning[] }
+  | { type: 'error'; error: WorkerError };
 
 const post = (m: WorkerMessage) => (self as unknown as DedicatedWorkerGlobalScope).postMessage(m);
 
@@ -25,11 +29,11 @@ self.onmessage = async (ev: MessageEvent<{ file: File }>) => {
     }
     text = text.replace(/^\uFEFF/, '');
     if (!text.trim()) {
-      post({ type: 'error', message: 'The file is empty.' });
+      post({ type: 'error', error: { code: 'fileEmpty' } });
       return;
     }
     const rows: string[][] = [];
-    const warnings: string[] = [];
+    const warnings: WorkerWarning[] = [];
     let delimiter = ',';
     Papa.parse<string[]>(text, {
       skipEmptyLines: 'greedy',
@@ -42,17 +46,17 @@ self.onmessage = async (ev: MessageEvent<{ file: File }>) => {
       complete: () => {
         const [headers, ...data] = rows;
         if (!headers) {
-          post({ type: 'error', message: 'The file has no header row.' });
+          post({ type: 'error', error: { code: 'noHeader' } });
           return;
         }
         if (headers.length === 1 && /[;\t|]/.test(text.slice(0, 2000)) === false && /,/.test(headers[0] ?? '') === false) {
-          warnings.push('Only one column was found. If the file uses another separator, save it as CSV with commas or semicolons.');
+          warnings.push('oneColumn');
         }
         post({ type: 'progress', fraction: 1 });
         post({ type: 'done', headers: headers.map((h) => h.trim()), rows: data, encoding, delimiter, warnings });
       },
     });
   } catch (err) {
-    post({ type: 'error', message: `The file could not be read: ${(err as Error).message}` });
+    post({ type: 'error', error: { code: 'unreadable', detail: (err as Error).message } });
   }
 };

@@ -1,4 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { i18n } from '@/i18n';
 import { ApiRequestError, getCsrfToken, api } from '@/lib/api-client';
 import { logKeys } from './keys';
 
@@ -29,7 +30,7 @@ export function useUploadPhoto(trialId: string, observationId: string) {
       form.append('photo', file);
       const res = await fetch(`/api/observations/${observationId}/photos`, { method: 'POST', body: form, credentials: 'same-origin', headers: { 'X-CSRF-Token': getCsrfToken() ?? '' } });
       const body = await res.json().catch(() => null);
-      if (!res.ok) throw new ApiRequestError(res.status, body?.error?.code ?? 'http_error', body?.error?.message ?? 'The photo could not be uploaded.');
+      if (!res.ok) throw new ApiRequestError(res.status, body?.error?.code ?? 'http_error', body?.error?.message ?? i18n.getFixedT(null, 'logs')(($) => $.photoFailed));
       return body.data as Photo;
     },
     onSuccess: () => qc.invalidateQueries({ queryKey: logKeys.photos(trialId, observationId) }),

@@ -1,48 +1,45 @@
 import type { LogKind } from '@shared/schemas/logs';
 import type { Quantity } from '@shared/units';
+import type logs from '@/locales/en/logs.json';
 
-/** What each log kind shows in its table: field, header, and the quantity for unit conversion. */
+/** A column header: a key of the `logs` namespace's `col` group. */
+export type LogColumnHeader = keyof typeof logs.col;
+
+/** What each log kind shows in its table: field, header (translated in the `logs` namespace), and the quantity for unit conversion. */
 export interface LogColumn {
   field: string;
-  header: string;
+  header: LogColumnHeader;
   quantity?: Quantity;
   digits?: number;
   numeric?: boolean;
 }
 
-export const logTitles: Record<LogKind, string> = {
-  'water-events': 'Water',
-  'moisture-readings': 'Soil moisture',
-  harvests: 'Harvests',
-  observations: 'Notes',
-};
-
 export const logColumns: Record<LogKind, LogColumn[]> = {
   'water-events': [
-    { field: 'occurredAt', header: 'When' },
-    { field: 'plotLabel', header: 'Plot' },
-    { field: 'kind', header: 'Kind' },
-    { field: 'volumeL', header: 'Volume', quantity: 'volume', digits: 2, numeric: true },
-    { field: 'source', header: 'Source' },
-    { field: 'fertiliser', header: 'Fertiliser' },
+    { field: 'occurredAt', header: 'when' },
+    { field: 'plotLabel', header: 'plot' },
+    { field: 'kind', header: 'kind' },
+    { field: 'volumeL', header: 'volume', quantity: 'volume', digits: 2, numeric: true },
+    { field: 'source', header: 'source' },
+    { field: 'fertiliser', header: 'fertiliser' },
   ],
   'moisture-readings': [
-    { field: 'takenAt', header: 'When' },
-    { field: 'plotLabel', header: 'Plot' },
-    { field: 'method', header: 'Method' },
-    { field: 'depthCm', header: 'Depth (cm)', numeric: true },
-    { field: 'value', header: 'Reading', numeric: true },
+    { field: 'takenAt', header: 'when' },
+    { field: 'plotLabel', header: 'plot' },
+    { field: 'method', header: 'method' },
+    { field: 'depthCm', header: 'depth', numeric: true },
+    { field: 'value', header: 'reading', numeric: true },
   ],
   harvests: [
-    { field: 'harvestedOn', header: 'Day' },
-    { field: 'plotLabel', header: 'Plot' },
-    { field: 'freshKg', header: 'Fresh mass', quantity: 'mass', digits: 2, numeric: true },
-    { field: 'marketableKg', header: 'Marketable', quantity: 'mass', digits: 2, numeric: true },
-    { field: 'count', header: 'Count', numeric: true },
+    { field: 'harvestedOn', header: 'day' },
+    { field: 'plotLabel', header: 'plot' },
+    { field: 'freshKg', header: 'fresh', quantity: 'mass', digits: 2, numeric: true },
+    { field: 'marketableKg', header: 'marketable', quantity: 'mass', digits: 2, numeric: true },
+    { field: 'count', header: 'count', numeric: true },
   ],
   observations: [
-    { field: 'observedAt', header: 'When' },
-    { field: 'plotLabel', header: 'Plot' },
-    { field: 'text', header: 'Note' },
+    { field: 'observedAt', header: 'when' },
+    { field: 'plotLabel', header: 'plot' },
+    { field: 'text', header: 'note' },
   ],
 };

@@ -1,28 +1,43 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { logKinds, type LogKind } from '@shared/schemas/logs';
 import type { Plot } from '@shared/schemas/plots';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { InputField, SelectField } from '@/components/ui/field';
-import { formatDateTime } from '@/lib/format';
+import { formatDate, formatDateTime, formatNumber } from '@/lib/format';
 import { useUnits } from '@/lib/units';
 import { cn } from '@/lib/utils';
 import { useLogs, type LogRow } from '../api/get-logs';
 import { useDeleteLog } from '../api/log-mutations';
-import { logColumns, logTitles } from './log-columns';
+import { logColumns } from './log-columns';
 import { LogEditRow } from './log-edit-row';
 import { LogForm } from './log-form';
 import { ObservationPhotos } from './observation-photos';
 
 const PAGE_SIZE = 25;
 
-function cellText(row: LogRow, field: string): string {
+const waterKinds = ['olla_refill', 'surface'] as const;
+const sources = ['mains', 'rainwater', 'well', 'greywater', 'other'] as const;
+const methods = ['vwc', 'tensiometer', 'probe_index'] as const;
+const known = <T extends string>(list: readonly T[], v: unknown): T | undefined => list.find((x) => x === v);
+
+/** A stored value as the reader sees it: dates, numbers and the enum values in their language. */
+function cellText(row: LogRow, field: string, t: TFunction<'logs'>): string {
   const v = row[field];
   if (v === null || v === undefined || v === '') return '—';
-  if (typeof v === 'boolean') return v ? 'yes' : 'no';
+  if (typeof v === 'boolean') return v ? t(($) => $.yes) : t(($) => $.no);
   if (field.endsWith('At')) return formatDateTime(String(v));
-  if (field === 'kind') return v === 'olla_refill' ? 'olla refill' : 'surface';
+  if (field === 'harvestedOn') return formatDate(String(v));
+  if (typeof v === 'number') return formatNumber(v, 2);
+  const kind = field === 'kind' ? known(waterKinds, v) : undefined;
+  if (kind) return t(($) => $.waterKinds[kind]);
+  const source = field === 'source' ? known(sources, v) : undefined;
+  if (source) return t(($) => $.sources[source]);
+  const method = field === 'method' ? known(methods, v) : undefined;
+  if (method) return t(($) => $.methods[method]);
   return String(v);
 }
 
@@ -32,6 +47,8 @@ function cellText(row: LogRow, field: string): string {
  */
 export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots: Plot[]; editable: boolean }) {
   const units = useUnits();
+  const { t } = useTranslation('logs');
+  const { t: tc } = useTranslation('common');
   const [kind, setKind] = useState<LogKind>('water-events');
   const [page, setPage] = useState(1);
   const [sort, setSort] = useState<'asc' | 'desc'>('desc');
@@ -49,8 +66,8 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
 
   return (
     <section aria-labelledby="logs-heading" className="space-y-4">
-      <h2 id="logs-heading">Records</h2>
-      <div role="tablist" aria-label="Kind of record" className="flex flex-wrap gap-2">
+      <h2 id="logs-heading">{t(($) => $.panel.title)}</h2>
+      <div role="tablist" aria-label={t(($) => $.panel.kindTabs)} className="flex flex-wrap gap-2">
         {logKinds.map((k) => (
           <button
             key={k}
@@ -63,45 +80,50 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
               setPage(1);
             }}
           >
-            {logTitles[k]}
+            {t(($) => $.kinds[k])}
           </button>
         ))}
       </div>
       {editable ? <LogForm key={kind} trialId={trialId} kind={kind} plots={plots} /> : null}
       <div className="flex flex-wrap items-end gap-3">
-        <InputField label="From" type="date" value={from} onChange={(e) => (setFrom(e.target.value), setPage(1))} />
-        <InputField label="To" type="date" value={to} onChange={(e) => (setTo(e.target.value), setPage(1))} />
-        <SelectField label="Plot" value={plotId} onChange={(e) => (setPlotId(e.target.value), setPage(1))}>
-          <option value="">All plots</option>
+        <InputField label={t(($) => $.panel.from)} type="date" value={from} onChange={(e) => (setFrom(e.target.value), setPage(1))} />
+        <InputField label={t(($) => $.panel.to)} type="date" value={to} onChange={(e) => (setTo(e.target.value), setPage(1))} />
+        <SelectField label={t(($) => $.panel.plot)} value={plotId} onChange={(e) => (setPlotId(e.target.value), setPage(1))}>
+          <option value="">{t(($) => $.panel.allPlots)}</option>
           {plots.map((p) => (
             <option key={p.id} value={p.id}>
               {p.label}
             </option>
           ))}
         </SelectField>
-        <SelectField label="Order" value={sort} onChange={(e) => setSort(e.target.value as 'asc' | 'desc')}>
-          <option value="desc">Newest first</option>
-          <option value="asc">Oldest first</option>
+        <SelectField label={t(($) => $.panel.order)} value={sort} onChange={(e) => setSort(e.target.value as 'asc' | 'desc')}>
+          <option value="desc">{t(($) => $.panel.newest)}</option>
+          <option value="asc">{t(($) => $.panel.oldest)}</option>
         </SelectField>
       </div>
       {logs.isError ? <Alert tone="error">{logs.error.message}</Alert> : null}
-      <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={`${logTitles[kind]} records (scrolls sideways)`}>
+      <div
+        className="relative overflow-x-auto rounded-card border border-sand-200 bg-white"
+        tabIndex={0}
+        role="region"
+        aria-label={t(($) => $.panel.scrollRegion, { kind: t(($) => $.kinds[kind]) })}
+      >
         <table className="w-full text-sm">
-          <caption className="sr-only">{logTitles[kind]} records</caption>
+          <caption className="sr-only">{t(($) => $.panel.caption, { kind: t(($) => $.kinds[kind]) })}</caption>
           <thead className="bg-sand-100 text-left">
             <tr>
               {cols.map((c) => (
                 <th key={c.field} scope="col" className={cn('px-3 py-2', c.numeric && 'text-right')}>
-                  {c.header}
+                  {t(($) => $.col[c.header])}
                   {c.quantity ? ` (${units.label(c.quantity)})` : ''}
                 </th>
               ))}
               <th scope="col" className="px-3 py-2">
-                By
+                {t(($) => $.col.by)}
               </th>
               {editable ? (
                 <th scope="col" className="px-3 py-2">
-                  <span className="sr-only">Actions</span>
+                  <span className="sr-only">{t(($) => $.col.actions)}</span>
                 </th>
               ) : null}
             </tr>
@@ -114,18 +136,18 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
                 <tr key={row.id} className="border-t border-sand-100 align-top">
                   {cols.map((c) => (
                     <td key={c.field} className={cn('px-3 py-1.5', c.numeric && 'num')}>
-                      {c.quantity && typeof row[c.field] === 'number' ? units.show(row[c.field] as number, c.quantity).toFixed(c.digits ?? 1) : cellText(row, c.field)}
+                      {c.quantity && typeof row[c.field] === 'number' ? formatNumber(units.show(row[c.field] as number, c.quantity), c.digits ?? 1, c.digits ?? 1) : cellText(row, c.field, t)}
                       {kind === 'observations' && c.field === 'text' ? <ObservationPhotos trialId={trialId} observationId={row.id} editable={editable} /> : null}
                     </td>
                   ))}
                   <td className="px-3 py-1.5 text-ink-muted">{row.enteredBy ?? '—'}</td>
                   {editable ? (
                     <td className="whitespace-nowrap px-3 py-1.5 text-right">
-                      <Button variant="ghost" size="sm" onClick={() => setEditing(row.id)} aria-label="Edit this record">
-                        Edit
+                      <Button variant="ghost" size="sm" onClick={() => setEditing(row.id)} aria-label={t(($) => $.panel.edit)}>
+                        {tc(($) => $.actions.edit)}
                       </Button>
-                      <Button variant="ghost" size="sm" onClick={() => setToDelete(row)} aria-label="Delete this record">
-                        Delete
+                      <Button variant="ghost" size="sm" onClick={() => setToDelete(row)} aria-label={t(($) => $.panel.delete)}>
+                        {tc(($) => $.actions.delete)}
                       </Button>
                     </td>
                   ) : null}
@@ -134,30 +156,30 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
             )}
           </tbody>
         </table>
-        {logs.isSuccess && total === 0 ? <p className="px-3 py-4 text-ink-muted">No records match.</p> : null}
+        {logs.isSuccess && total === 0 ? <p className="px-3 py-4 text-ink-muted">{t(($) => $.panel.none)}</p> : null}
       </div>
-      <nav aria-label="Pages" className="flex items-center gap-3">
+      <nav aria-label={t(($) => $.panel.pages)} className="flex items-center gap-3">
         <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
-          Previous
+          {t(($) => $.panel.previous)}
         </Button>
         <span className="text-sm" aria-live="polite">
-          Page {page} of {pages} · {total} record{total === 1 ? '' : 's'}
+          {t(($) => $.panel.pageOf, { page, pages })} · {t(($) => $.panel.records, { count: total })}
         </span>
         <Button variant="secondary" size="sm" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
-          Next
+          {t(($) => $.panel.next)}
         </Button>
       </nav>
       <ConfirmDialog
         open={toDelete !== null}
-        title="Delete this record?"
-        confirmLabel="Delete"
+        title={t(($) => $.panel.deleteTitle)}
+        confirmLabel={tc(($) => $.actions.delete)}
         tone="danger"
         pending={remove.isPending}
         error={remove.error?.message ?? null}
         onCancel={() => setToDelete(null)}
         onConfirm={() => toDelete && remove.mutate(toDelete.id, { onSuccess: () => setToDelete(null) })}
       >
-        The totals and results are recomputed without it. In a shared trial the deletion is kept in the audit trail.
+        {t(($) => $.panel.deleteBody)}
       </ConfirmDialog>
     </section>
   );

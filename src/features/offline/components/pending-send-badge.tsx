@@ -1,21 +1,22 @@
+import { useTranslation } from 'react-i18next';
 import { cn } from '@/lib/utils';
 import { useIsOnline } from '../online';
 import { useOutboxSummary } from '../outbox';
-
-const plural = (n: number) => `${n} record${n === 1 ? '' : 's'}`;
 
 /**
  * The connection and the outbox in a few words: "Offline · 3 waiting to send". Nothing when
  * online with nothing waiting. A small pill that fits in a header.
  */
 export function PendingSendBadge({ className }: { className?: string }) {
+  // Not suspending: the bar sits above the router, and its words are not worth holding up every page.
+  const { t, ready } = useTranslation('offline', { useSuspense: false });
   const online = useIsOnline();
   const { waiting, refused } = useOutboxSummary();
-  if (online && waiting === 0 && refused === 0) return null;
+  if (!ready || (online && waiting === 0 && refused === 0)) return null;
   const parts: string[] = [];
-  if (!online) parts.push('Offline');
-  if (waiting > 0) parts.push(online ? `Sending ${plural(waiting)}…` : `${waiting} waiting to send`);
-  if (refused > 0) parts.push(`${plural(refused)} not accepted — open the Round to check`);
+  if (!online) parts.push(t(($) => $.offline));
+  if (waiting > 0) parts.push(online ? t(($) => $.sending, { count: waiting }) : t(($) => $.waiting, { count: waiting }));
+  if (refused > 0) parts.push(t(($) => $.refused, { count: refused }));
   return (
     <span
       role="status"

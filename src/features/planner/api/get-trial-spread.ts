@@ -17,14 +17,15 @@ export type TrialSpread =
       /** Mean of the control plots' water over the pairs, mm (to turn the spread into a share). */
       controlMeanMm: number;
     }
-  | { kind: 'none'; reason: string };
+  /** Why there is none, as a code the screen words in the reader's language (`detail`: the analysis's own reason). */
+  | { kind: 'none'; reason: 'noPair' | 'notTestable' | 'noSpread'; detail?: string };
 
 export function spreadFromAnalysis(a: AnalysisResponse): TrialSpread {
   const c = a.comparisons[0];
-  if (!c) return { kind: 'none', reason: 'This trial has no pair with both a treated and a control plot yet.' };
+  if (!c) return { kind: 'none', reason: 'noPair' };
   const m = c.metrics.waterMm;
-  if (m.kind !== 'test') return { kind: 'none', reason: `${m.reason} A spread needs at least two complete pairs.` };
-  if (!(m.result.sdDifference > 0)) return { kind: 'none', reason: 'Every pair of this trial differs by exactly the same amount, so it shows no spread to plan with.' };
+  if (m.kind !== 'test') return { kind: 'none', reason: 'notTestable', detail: m.reason };
+  if (!(m.result.sdDifference > 0)) return { kind: 'none', reason: 'noSpread' };
   const controlMeanMm = c.pairs.length ? c.pairs.reduce((s, p) => s + p.waterMm[1], 0) / c.pairs.length : 0;
   return { kind: 'spread', treatment: c.treatment, control: c.control, pairs: m.n, sdMm: m.result.sdDifference, controlMeanMm };
 }

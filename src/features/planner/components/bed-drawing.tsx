@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { Bed, OllaPlan } from '@shared/agronomy/olla-layout';
 import { useUnits } from '@/lib/units';
 
@@ -9,6 +10,7 @@ export const MAX_DRAWN_POTS = 400;
 /** A bed seen from above: the bed, each pot, and each pot's wetted zone (dashed, by the rule of thumb). */
 export function BedDrawing({ bed, plan, potDiameterM, description }: { bed: Bed; plan: OllaPlan; potDiameterM: number; description: string }) {
   const units = useUnits();
+  const { t } = useTranslation('planner');
   const id = useId();
   const L = bed.lengthM;
   const W = bed.widthM;
@@ -21,7 +23,7 @@ export function BedDrawing({ bed, plan, potDiameterM, description }: { bed: Bed;
   return (
     <figure className="space-y-2">
       <svg viewBox={viewBox} role="img" aria-labelledby={`${id}-title ${id}-desc`} className="mx-auto block max-h-[26rem] w-full" preserveAspectRatio="xMidYMid meet">
-        <title id={`${id}-title`}>Layout drawing of the bed</title>
+        <title id={`${id}-title`}>{t(($) => $.bed.drawingTitle)}</title>
         <desc id={`${id}-desc`}>{description}</desc>
         <defs>
           <clipPath id={`${id}-bed`}>
@@ -68,15 +70,15 @@ export function BedDrawing({ bed, plan, potDiameterM, description }: { bed: Bed;
           <svg aria-hidden="true" viewBox="0 0 16 16" className="size-4">
             <circle cx="8" cy="8" r="6" fill={SAGE} />
           </svg>
-          Pot
+          {t(($) => $.bed.legendPot)}
         </span>
         <span className="inline-flex items-center gap-2">
           <svg aria-hidden="true" viewBox="0 0 16 16" className="size-4">
             <circle cx="8" cy="8" r="6.5" fill={SAGE} fillOpacity={0.1} stroke={SAGE} strokeWidth={1.5} strokeDasharray="3 2" />
           </svg>
-          Wetted zone (rule of thumb)
+          {t(($) => $.bed.legendWetted)}
         </span>
-        <span>Bed seen from above, to scale</span>
+        <span>{t(($) => $.bed.legendScale)}</span>
       </figcaption>
     </figure>
   );

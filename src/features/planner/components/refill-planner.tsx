@@ -1,10 +1,13 @@
 import { useMemo, useState } from 'react';
+import type { TFunction } from 'i18next';
 import { useForm, useWatch } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import { z } from 'zod';
 import { refillIntervalDays, wettedAreaM2, type RefillInput } from '@shared/agronomy/olla-layout';
 import { Choice, ChoiceGroup } from '@/components/ui/choice-group';
 import { InputField, SelectField } from '@/components/ui/field';
 import { useUnits } from '@/lib/units';
+import { numberMessages } from './bed-planner';
 import { checkField, fieldMessages, formatNumber, numberText, typedNumber } from './typed-number';
 import type { PlannerPot, RenderCaution } from './types';
 
@@ -16,25 +19,29 @@ const MAX_NEED_MM_PER_DAY = 25;
 const MIN_POT_MM = 50;
 const MAX_POT_MM = 1500;
 
-export function refillSchema(units: Units) {
+export function refillSchema(units: Units, t: TFunction<'planner'>) {
   const vol = units.label('volume');
   const rate = units.label('rate');
   const small = units.label('length-small');
-  const capacity = typedNumber(`the capacity in ${vol}`, (n) =>
-    n.positive('Capacity must be more than zero.').max(units.show(MAX_CAPACITY_L, 'volume'), `At most ${formatNumber(units.show(MAX_CAPACITY_L, 'volume'), 1)} ${vol}.`),
-  );
-  const seepage = typedNumber(`the seepage in ${rate}`, (n) =>
-    n.min(0, 'Seepage cannot be negative.').max(units.show(MAX_SEEPAGE_L_PER_DAY, 'rate'), `At most ${formatNumber(units.show(MAX_SEEPAGE_L_PER_DAY, 'rate'), 1)} ${rate}: check the seep test.`),
-  );
-  const need = typedNumber(`the crop water need in ${small}/day`, (n) =>
+  const capacity = typedNumber(numberMessages(t, t(($) => $.refill.whatCapacity, { unit: vol })), (n) =>
     n
-      .min(0, 'The water need cannot be negative.')
-      .max(units.show(MAX_NEED_MM_PER_DAY, 'length-small'), `At most ${formatNumber(units.show(MAX_NEED_MM_PER_DAY, 'length-small'), 2)} ${small}/day: even desert summers stay below that.`),
+      .positive(t(($) => $.refill.capacityPositive))
+      .max(units.show(MAX_CAPACITY_L, 'volume'), t(($) => $.bed.atMost, { max: formatNumber(units.show(MAX_CAPACITY_L, 'volume'), 1), unit: vol })),
   );
-  const diameter = typedNumber(`the pot's widest diameter in ${small}`, (n) =>
+  const seepage = typedNumber(numberMessages(t, t(($) => $.refill.whatSeepage, { unit: rate })), (n) =>
     n
-      .min(units.show(MIN_POT_MM, 'length-small'), `At least ${formatNumber(units.show(MIN_POT_MM, 'length-small'), 1)} ${small}.`)
-      .max(units.show(MAX_POT_MM, 'length-small'), `At most ${formatNumber(units.show(MAX_POT_MM, 'length-small'), 0)} ${small}.`),
+      .min(0, t(($) => $.refill.seepageNegative))
+      .max(units.show(MAX_SEEPAGE_L_PER_DAY, 'rate'), t(($) => $.refill.seepageMax, { max: formatNumber(units.show(MAX_SEEPAGE_L_PER_DAY, 'rate'), 1), unit: rate })),
+  );
+  const need = typedNumber(numberMessages(t, t(($) => $.refill.whatNeed, { unit: small })), (n) =>
+    n
+      .min(0, t(($) => $.refill.needNegative))
+      .max(units.show(MAX_NEED_MM_PER_DAY, 'length-small'), t(($) => $.refill.needMax, { max: formatNumber(units.show(MAX_NEED_MM_PER_DAY, 'length-small'), 2), unit: small })),
+  );
+  const diameter = typedNumber(numberMessages(t, t(($) => $.refill.whatDiameter, { unit: small })), (n) =>
+    n
+      .min(units.show(MIN_POT_MM, 'length-small'), t(($) => $.bed.atLeast, { min: formatNumber(units.show(MIN_POT_MM, 'length-small'), 1), unit: small }))
+      .max(units.show(MAX_POT_MM, 'length-small'), t(($) => $.bed.atMost, { max: formatNumber(units.show(MAX_POT_MM, 'length-small'), 0), unit: small })),
   );
   return z
     .object({ mode: z.enum(['seepage', 'need']), capacity: z.string(), seepage: z.string(), need: z.string(), diameter: z.string() })
@@ -58,7 +65,8 @@ type RefillValues = z.input<ReturnType<typeof refillSchema>>;
 /** (b) How often to refill: capacity over the daily draw (measured seepage, or crop need over the wetted zone). */
 export function RefillPlanner({ pots, renderCaution }: { pots: PlannerPot[]; renderCaution: RenderCaution }) {
   const units = useUnits();
-  const schema = useMemo(() => refillSchema(units), [units]);
+  const { t } = useTranslation('planner');
+  const schema = useMemo(() => refillSchema(units, t), [units, t]);
   const us = units.system === 'us';
   const defaults = useMemo<RefillValues>(
     () => ({ mode: 'seepage', capacity: us ? '2' : '8', seepage: us ? '0.5' : '2', need: us ? '0.2' : '5', diameter: us ? '12' : '300' }),
@@ -74,9 +82,9 @@ export function RefillPlanner({ pots, renderCaution }: { pots: PlannerPot[]; ren
     try {
       return { ...parsed.data, interval: refillIntervalDays(parsed.data.input) };
     } catch (err) {
-      return { error: err instanceof Error ? err.message : 'These numbers cannot be worked out.' };
+      return { error: err instanceof Error ? err.message : t(($) => $.refill.cannot) };
     }
-  }, [parsed]);
+  }, [parsed, t]);
   // Messages come from the live parse of the whole form, so a rule across fields shows too.
   const e = fieldMessages(parsed);
   const mode = values.mode ?? defaults.mode;
@@ -90,30 +98,30 @@ export function RefillPlanner({ pots, renderCaution }: { pots: PlannerPot[]; ren
     setValue('diameter', numberText(units.show(pot.widestDiameterCm * 10, 'length-small'), us ? 1 : 0), opts);
     if (pot.latestSeepLitresPerDay !== null) {
       setValue('seepage', numberText(units.show(pot.latestSeepLitresPerDay, 'rate'), 2), opts);
-      setPotNote(`Filled from ${pot.label}: its capacity, diameter and latest seep test.`);
+      setPotNote(t(($) => $.refill.filledFrom, { pot: pot.label }));
     } else {
-      setPotNote(`Filled from ${pot.label}: its capacity and diameter. It has no seep test yet, so use the crop water need or test it on the Pot shelf.`);
+      setPotNote(t(($) => $.refill.filledFromNoTest, { pot: pot.label }));
     }
   };
 
   const interval = result && 'interval' in result ? result.interval : null;
   const headline = (days: number) => {
-    if (!Number.isFinite(days)) return 'The pot never empties at that draw';
-    if (days < 1) return `Refill about every ${formatNumber(Math.max(1, Math.round(days * 24)), 0)} hours`;
-    return `Refill about every ${formatNumber(days, days < 10 ? 1 : 0)} days`;
+    if (!Number.isFinite(days)) return t(($) => $.refill.never);
+    if (days < 1) return t(($) => $.refill.hours, { n: formatNumber(Math.max(1, Math.round(days * 24)), 0) });
+    return t(($) => $.refill.days, { n: formatNumber(days, days < 10 ? 1 : 0) });
   };
 
   return (
     <section aria-labelledby="refill-heading" className="space-y-4 rounded-card border border-sand-200 bg-white p-4 shadow-sm sm:p-5">
       <div>
-        <h2 id="refill-heading">How often to refill</h2>
-        <p className="text-sm text-ink-muted">Days from full to empty: what the pot holds, divided by what it gives up each day.</p>
+        <h2 id="refill-heading">{t(($) => $.refill.title)}</h2>
+        <p className="text-sm text-ink-muted">{t(($) => $.refill.intro)}</p>
       </div>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,22rem)_minmax(0,1fr)]">
-        <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Pot and daily draw" className="space-y-3">
+        <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label={t(($) => $.refill.formLabel)} className="space-y-3">
           {pots.length ? (
-            <SelectField id="refill-from-pot" label="Start from a pot on your shelf (optional)" value={fromPot} onChange={(ev) => fillFrom(ev.target.value)} hint={potNote ?? undefined}>
-              <option value="">Type the numbers myself</option>
+            <SelectField id="refill-from-pot" label={t(($) => $.refill.fromPot)} value={fromPot} onChange={(ev) => fillFrom(ev.target.value)} hint={potNote ?? undefined}>
+              <option value="">{t(($) => $.refill.typeMyself)}</option>
               {pots.map((p) => (
                 <option key={p.id} value={p.id}>
                   {p.label}
@@ -121,27 +129,27 @@ export function RefillPlanner({ pots, renderCaution }: { pots: PlannerPot[]; ren
               ))}
             </SelectField>
           ) : null}
-          <InputField id="refill-capacity" label={`Capacity (${units.label('volume')})`} inputMode="decimal" className="text-right" {...register('capacity')} error={e.capacity} />
-          <ChoiceGroup legend="What sets the daily draw" error={e.mode}>
-            <Choice label="Measured seepage" hint="From a seep test of this pot in the bed." value="seepage" {...register('mode')} />
-            <Choice label="Crop water need" hint="ETc per day, over the pot's wetted zone." value="need" {...register('mode')} />
+          <InputField id="refill-capacity" label={t(($) => $.refill.capacity, { unit: units.label('volume') })} inputMode="decimal" className="text-right" {...register('capacity')} error={e.capacity} />
+          <ChoiceGroup legend={t(($) => $.refill.drawLegend)} error={e.mode}>
+            <Choice label={t(($) => $.refill.measured)} hint={t(($) => $.refill.measuredHint)} value="seepage" {...register('mode')} />
+            <Choice label={t(($) => $.refill.need)} hint={t(($) => $.refill.needHint)} value="need" {...register('mode')} />
           </ChoiceGroup>
           {mode === 'seepage' ? (
-            <InputField id="refill-seepage" label={`Seepage (${units.label('rate')})`} inputMode="decimal" className="text-right" {...register('seepage')} error={e.seepage} />
+            <InputField id="refill-seepage" label={t(($) => $.refill.seepage, { unit: units.label('rate') })} inputMode="decimal" className="text-right" {...register('seepage')} error={e.seepage} />
           ) : (
             <>
               <InputField
                 id="refill-need"
-                label={`Crop water need (${units.label('length-small')}/day)`}
+                label={t(($) => $.refill.needField, { unit: units.label('length-small') })}
                 inputMode="decimal"
                 className="text-right"
-                hint="ETc: reference evapotranspiration × crop coefficient. A trial's Results tab shows it for your garden."
+                hint={t(($) => $.refill.needFieldHint)}
                 {...register('need')}
                 error={e.need}
               />
               <InputField
                 id="refill-diameter"
-                label={`Pot widest diameter (${units.label('length-small')})`}
+                label={t(($) => $.refill.diameter, { unit: units.label('length-small') })}
                 inputMode="decimal"
                 className="text-right"
                 {...register('diameter')}
@@ -158,10 +166,13 @@ export function RefillPlanner({ pots, renderCaution }: { pots: PlannerPot[]; ren
                   {headline(interval.days)}
                 </p>
                 <p className="text-ink-muted">
-                  The pot holds {units.fmt(result.input.capacityL, 'volume', us ? 2 : 1)} and gives up {units.fmt(interval.dailyDrawL, 'rate', 2)}
+                  {t(($) => $.refill.holds, { capacity: units.fmt(result.input.capacityL, 'volume', us ? 2 : 1), draw: units.fmt(interval.dailyDrawL, 'rate', 2) })}
                   {interval.basis === 'measured-seepage'
-                    ? ' (its measured seepage).'
-                    : ` (${units.fmt(result.input.cropNeedMmPerDay ?? 0, 'length-small', us ? 2 : 1)} a day over a wetted zone of ${units.fmt(result.input.wettedAreaM2 ?? 0, 'area', 2)}).`}
+                    ? t(($) => $.refill.measuredBasis)
+                    : t(($) => $.refill.needBasis, {
+                        need: units.fmt(result.input.cropNeedMmPerDay ?? 0, 'length-small', us ? 2 : 1),
+                        area: units.fmt(result.input.wettedAreaM2 ?? 0, 'area', 2),
+                      })}
                 </p>
               </>
             ) : result && 'error' in result ? (
@@ -169,18 +180,16 @@ export function RefillPlanner({ pots, renderCaution }: { pots: PlannerPot[]; ren
                 {result.error}
               </p>
             ) : (
-              <p className="text-ink-muted">Correct the marked numbers to see the interval.</p>
+              <p className="text-ink-muted">{t(($) => $.refill.correct)}</p>
             )}
           </div>
           {mode === 'need' ? (
             <p className="rounded-lg border border-sand-200 bg-sand-50 px-3 py-2 text-sm">
-              <strong>Rule of thumb:</strong> a pot wets the soil about one pot radius beyond its wall, so the wetted zone is a circle one pot diameter in radius. The
-              crop draws on that zone only.
+              <strong>{t(($) => $.ruleOfThumb)}</strong> {t(($) => $.refill.wettedRule)}
             </p>
           ) : null}
           <p className="text-sm text-ink-muted">
-            Rule of thumb: in hot weather growers refill every day or two. Seepage changes with the soil&apos;s moisture and the season, so compare this figure with your own
-            refills in the Round.
+            {t(($) => $.refill.hotWeather)}
           </p>
           {renderCaution('openPotMosquitoes', { headingLevel: 3 })}
         </div>

@@ -1,22 +1,23 @@
 import { z } from 'zod';
-
-const parse = (text: string) => Number(text.trim().replace(',', '.'));
+import { formatNumber as formatLocal } from '@/lib/format';
+import { parseDecimal as parse } from '@/lib/parse-number';
 
 /**
  * A number typed into a text box: a decimal comma is accepted, an empty box and text that is
  * not a number each get a message in words. `rules` adds the range checks in display units.
  */
-export function typedNumber(what: string, rules: (n: z.ZodNumber) => z.ZodType<number, number> = (n) => n) {
+export function typedNumber(what: string | { enter: string; notNumber: string }, rules: (n: z.ZodNumber) => z.ZodType<number, number> = (n) => n) {
+  const m = typeof what === 'string' ? { enter: `Enter ${what}.`, notNumber: `Write ${what} as a number, like 2.5.` } : what;
   return z
     .string()
     .transform((text, ctx) => {
       if (!text.trim()) {
-        ctx.addIssue({ code: 'custom', message: `Enter ${what}.` });
+        ctx.addIssue({ code: 'custom', message: m.enter });
         return z.NEVER;
       }
       const n = parse(text);
       if (!Number.isFinite(n)) {
-        ctx.addIssue({ code: 'custom', message: `Write ${what} as a number, like 2.5.` });
+        ctx.addIssue({ code: 'custom', message: m.notNumber });
         return z.NEVER;
       }
       return n;
@@ -40,9 +41,9 @@ export function numberText(value: number, digits: number): string {
   return Number.isFinite(value) ? String(Number(value.toFixed(digits))) : '';
 }
 
-/** A number for reading: grouped, at most `digits` decimals. */
+/** A number for reading in the reader's language (decimal comma in Spanish): grouped, at most `digits` decimals. */
 export function formatNumber(value: number, digits: number): string {
-  return new Intl.NumberFormat(undefined, { maximumFractionDigits: digits }).format(value);
+  return formatLocal(value, digits);
 }
 
 /** The first message for each field of a failed parse, keyed by the field's name. */

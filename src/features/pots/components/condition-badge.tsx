@@ -1,6 +1,6 @@
+import { useTranslation } from 'react-i18next';
 import type { PotCondition } from '@shared/schemas/pots';
 import { cn } from '@/lib/utils';
-import { conditionLabels } from './pot-labels';
 
 const tone: Record<PotCondition, string> = {
   sound: 'border-sage-300 bg-sage-50 text-sage-800',
@@ -11,5 +11,6 @@ const tone: Record<PotCondition, string> = {
 
 /** The pot's condition in words (colour only repeats it). */
 export function ConditionBadge({ condition, className }: { condition: PotCondition; className?: string }) {
-  return <span className={cn('inline-flex items-center rounded-full border px-2.5 py-0.5 text-sm font-medium', tone[condition], className)}>{conditionLabels[condition]}</span>;
+  const { t } = useTranslation('pots');
+  return <span className={cn('inline-flex items-center rounded-full border px-2.5 py-0.5 text-sm font-medium', tone[condition], className)}>{t(($) => $.conditions[condition])}</span>;
 }

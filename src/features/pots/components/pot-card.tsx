@@ -1,6 +1,7 @@
 import { useState, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { firingBand } from '@shared/agronomy/pyrometric-cones';
-import { potMakeLabels, potShapeLabels, type Pot } from '@shared/schemas/pots';
+import type { Pot } from '@shared/schemas/pots';
 import { Button } from '@/components/ui/button';
 import { ConfirmAction } from '@/components/ui/confirm-dialog';
 import { formatDay } from './format-day';
@@ -11,7 +12,7 @@ import { useUpdatePot } from '../api/update-pot';
 import { ConditionBadge } from './condition-badge';
 import { digits } from './pot-form-schema';
 import { PotForm } from './pot-form';
-import { bandLabels, clayBodyLabels, coneDegrees } from './pot-labels';
+import { coneDegrees } from './pot-labels';
 import { PlacementForm } from './placement-form';
 import { SeepTests } from './seep-tests';
 import type { PlotChoice, RenderCaution } from './types';
@@ -32,6 +33,8 @@ function Row({ term, children, numeric }: { term: string; children: ReactNode; n
 /** One pot on the shelf: its facts, where it sits, its latest seep rate, and what can be done with it. */
 export function PotCard({ pot, plotChoices, renderCaution, onMessage }: { pot: Pot; plotChoices: PlotChoice[]; renderCaution: RenderCaution; onMessage: (m: string) => void }) {
   const units = useUnits();
+  const { t } = useTranslation('pots');
+  const { t: tc } = useTranslation('common');
   const update = useUpdatePot();
   const remove = useDeletePot();
   const [panel, setPanel] = useState<Panel>('none');
@@ -54,81 +57,89 @@ export function PotCard({ pot, plotChoices, renderCaution, onMessage }: { pot: P
         <ConditionBadge condition={pot.condition} />
       </header>
       <dl className="max-w-2xl text-sm">
-        <Row term="Capacity" numeric>
+        <Row term={t(($) => $.card.capacity)} numeric>
           {units.fmt(pot.capacityL, 'volume', d.volume)}
         </Row>
-        <Row term="Size" numeric>
+        <Row term={t(($) => $.card.size)} numeric>
           ⌀ {small(pot.widestDiameterCm)}
-          {pot.neckDiameterCm !== null ? `, neck ${small(pot.neckDiameterCm)}` : ''}
-          {pot.heightCm !== null ? `, ${small(pot.heightCm)} tall` : ''}
+          {pot.neckDiameterCm !== null ? t(($) => $.card.neck, { size: small(pot.neckDiameterCm) }) : ''}
+          {pot.heightCm !== null ? t(($) => $.card.tall, { size: small(pot.heightCm) }) : ''}
         </Row>
-        <Row term="Shape and make">
-          {potShapeLabels[pot.shape]} · {potMakeLabels[pot.make]}
+        <Row term={t(($) => $.card.shapeMake)}>
+          {t(($) => $.shapes[pot.shape])} · {t(($) => $.makes[pot.make])}
         </Row>
-        <Row term="Clay">{clayBodyLabels[pot.clayBody]}</Row>
-        <Row term="Firing">
+        <Row term={t(($) => $.card.clay)}>{t(($) => $.clays[pot.clayBody])}</Row>
+        <Row term={t(($) => $.card.firing)}>
           {pot.firingCone ? (
             <>
-              Cone {pot.firingCone} · <span className="num">{coneDegrees(pot.firingCone, units.system)}</span> · {bandLabels[firingBand(pot.firingCone)]}
+              {t(($) => $.card.cone, { cone: pot.firingCone })} · <span className="num">{coneDegrees(pot.firingCone, units.system)}</span> ·{' '}
+              {t(($) => $.bands[firingBand(pot.firingCone!)])}
             </>
           ) : (
-            'Cone not known'
+            t(($) => $.card.coneUnknown)
           )}
         </Row>
-        <Row term="Where">
+        <Row term={t(($) => $.card.where)}>
           {pot.plotId ? (
             <>
-              Plot {pot.plotLabel}
+              {t(($) => $.card.plot, { plot: pot.plotLabel })}
               {plot ? <span className="text-ink-muted"> · {plot.trialTitle}</span> : null}
             </>
           ) : (
-            'On the shelf'
+            t(($) => $.card.onShelf)
           )}
-          {pot.installedOn ? <span className="block text-ink-muted">buried {formatDay(pot.installedOn)}</span> : null}
+          {pot.installedOn ? <span className="block text-ink-muted">{t(($) => $.card.buried, { date: formatDay(pot.installedOn) })}</span> : null}
         </Row>
-        <Row term="Latest seep rate" numeric>
+        <Row term={t(($) => $.card.latestRate)} numeric>
           {latest ? (
             <>
               <span className="font-semibold">{units.fmt(pot.latestSeepLitresPerDay, 'rate', d.rate)}</span>
               <span className="block text-ink-muted">{formatDay(latest.testedOn)}</span>
             </>
           ) : (
-            <span className="text-ink-muted">not tested yet</span>
+            <span className="text-ink-muted">{t(($) => $.card.notTested)}</span>
           )}
         </Row>
       </dl>
       {pot.notes ? <p className="whitespace-pre-wrap text-sm text-ink-muted">{pot.notes}</p> : null}
       {twin ? (
         <p className="max-w-2xl rounded-lg border border-amber-300 bg-amber-50 px-3 py-2 text-sm text-amber-900">
-          Joined with glue or sealant: <a href={`#${cautionAnchors.twinPotAdhesive}`} className="font-medium underline">read the caution on adhesives</a>.
+          {t(($) => $.card.glued)}
+          <a href={`#${cautionAnchors.twinPotAdhesive}`} className="font-medium underline">
+            {t(($) => $.card.gluedLink)}
+          </a>
+          .
         </p>
       ) : null}
       {open ? (
         <p className="max-w-2xl rounded-lg border border-amber-300 bg-amber-50 px-3 py-2 text-sm text-amber-900">
-          Its plot keeps pots without lids: <a href={`#${cautionAnchors.openPotMosquitoes}`} className="font-medium underline">mosquitoes can breed in the open neck</a>.
+          {t(($) => $.card.openLids)}
+          <a href={`#${cautionAnchors.openPotMosquitoes}`} className="font-medium underline">
+            {t(($) => $.card.openLink)}
+          </a>
+          .
         </p>
       ) : null}
       <div className="flex flex-wrap gap-2">
         <Button variant="secondary" className="min-h-11 aria-expanded:border-terracotta-500 aria-expanded:bg-terracotta-50" aria-expanded={panel === 'tests'} aria-controls={panelId} onClick={() => toggle('tests')}>
-          Seep tests ({pot.seepTests.length})
+          {t(($) => $.card.seepTests, { count: pot.seepTests.length })}
         </Button>
         <Button variant="secondary" className="min-h-11 aria-expanded:border-terracotta-500 aria-expanded:bg-terracotta-50" aria-expanded={panel === 'place'} aria-controls={panelId} onClick={() => toggle('place')}>
-          Move or mark
+          {t(($) => $.card.moveOrMark)}
         </Button>
         <Button variant="secondary" className="min-h-11 aria-expanded:border-terracotta-500 aria-expanded:bg-terracotta-50" aria-expanded={panel === 'edit'} aria-controls={panelId} onClick={() => toggle('edit')}>
-          Edit
+          {tc(($) => $.actions.edit)}
         </Button>
         <ConfirmAction
-          label="Delete"
-          ariaLabel={`Delete pot ${pot.label}`}
+          label={tc(($) => $.actions.delete)}
+          ariaLabel={t(($) => $.card.deletePot, { pot: pot.label })}
           buttonProps={{ variant: 'ghost', className: 'min-h-11' }}
-          title={`Delete ${pot.label}?`}
-          confirmLabel="Delete pot and its tests"
+          title={t(($) => $.card.deleteTitle, { pot: pot.label })}
+          confirmLabel={t(($) => $.card.deleteConfirm)}
           tone="danger"
-          onConfirm={() => remove.mutateAsync(pot).then(() => onMessage(`${pot.label} deleted.`))}
+          onConfirm={() => remove.mutateAsync(pot).then(() => onMessage(t(($) => $.card.deleted, { pot: pot.label })))}
         >
-          The pot and its {pot.seepTests.length === 1 ? 'seep test are' : `${pot.seepTests.length} seep tests are`} removed from your shelf. Refills already logged in a trial stay in the
-          trial. To keep its history, mark it retired instead.
+          {t(($) => $.card.deleteBody, { count: pot.seepTests.length })}
         </ConfirmAction>
       </div>
       {panel !== 'none' ? (
@@ -151,12 +162,12 @@ export function PotCard({ pot, plotChoices, renderCaution, onMessage }: { pot: P
                 pot={pot}
                 plotChoices={plotChoices}
                 renderCaution={renderCaution}
-                submitLabel={`Save ${pot.label}`}
+                submitLabel={t(($) => $.card.save, { pot: pot.label })}
                 onCancel={() => setPanel('none')}
                 onSubmit={(input) =>
                   update.mutateAsync({ pot, changes: input }).then((p) => {
                     setPanel('none');
-                    onMessage(`${p.label} saved.`);
+                    onMessage(t(($) => $.card.saved, { pot: p.label }));
                   })
                 }
               />

@@ -1,3 +1,4 @@
+import type { TFunction } from 'i18next';
 import { z } from 'zod';
 import {
   clayBodySchema,
@@ -9,8 +10,9 @@ import {
   seepSettingSchema,
   type Pot,
 } from '@shared/schemas/pots';
+import { formatNumber } from '@/lib/format';
 import type { useUnits } from '@/lib/units';
-import { finalCheck, numberText, optionalTypedNumber, typedNumber } from './typed-number';
+import { finalCheck, numberText, optionalTypedNumber, typedNumber, type TypedNumberMessages } from './typed-number';
 
 type Units = ReturnType<typeof useUnits>;
 
@@ -39,25 +41,45 @@ const displayToCm = (units: Units, v: number) => units.toSI(v, 'length-small') /
  * gallons, the *Cm fields are millimetres or inches. On submit the values become SI and
  * pass through createPotInputSchema itself.
  */
-export function potFormSchema(units: Units) {
+/** A typed-number box's messages about `what`, in the reader's language. */
+export function numberMessages(t: TFunction<'pots'>, what: string): TypedNumberMessages {
+  return {
+    enter: t(($) => $.number.enter, { what }),
+    notNumber: t(($) => $.number.notNumber, { what }),
+    notNumberOrEmpty: t(($) => $.number.notNumberOrEmpty, { what }),
+  };
+}
+
+export function potFormSchema(units: Units, t: TFunction<'pots'>) {
   const vol = units.label('volume');
   const len = units.label('length-small');
   const d = digits(units);
-  const most = (si: number, q: 'volume' | 'length-small', n: number) => `${new Intl.NumberFormat().format(Number(units.show(si, q).toFixed(n)))} ${units.label(q)}`;
+  const most = (si: number, q: 'volume' | 'length-small', n: number) => `${formatNumber(units.show(si, q), n)} ${units.label(q)}`;
+  const say = (what: string) => numberMessages(t, what);
   return z
     .object({
-      label: z.string().trim().min(1, 'Give the pot a label.').max(limits.label, `Keep the label to ${limits.label} characters.`),
-      capacityL: typedNumber(`the capacity in ${vol}`, (n) =>
-        n.positive('Capacity must be more than zero.').max(units.show(limits.capacityL, 'volume'), `At most ${most(limits.capacityL, 'volume', d.volume)}: larger vessels are not garden ollas.`),
+      label: z
+        .string()
+        .trim()
+        .min(1, t(($) => $.errors.label))
+        .max(limits.label, t(($) => $.errors.labelMax, { max: limits.label })),
+      capacityL: typedNumber(say(t(($) => $.what.capacity, { unit: vol })), (n) =>
+        n
+          .positive(t(($) => $.errors.capacityPositive))
+          .max(units.show(limits.capacityL, 'volume'), t(($) => $.errors.capacityMax, { max: most(limits.capacityL, 'volume', d.volume) })),
       ),
-      heightCm: optionalTypedNumber(`the height in ${len}`, (n) =>
-        n.positive('Height must be more than zero.').max(cmToDisplay(units, limits.heightCm), `At most ${most(limits.heightCm * 10, 'length-small', 0)}.`),
+      heightCm: optionalTypedNumber(say(t(($) => $.what.height, { unit: len })), (n) =>
+        n.positive(t(($) => $.errors.heightPositive)).max(cmToDisplay(units, limits.heightCm), t(($) => $.errors.atMost, { max: most(limits.heightCm * 10, 'length-small', 0) })),
       ),
-      widestDiameterCm: typedNumber(`the widest diameter in ${len}`, (n) =>
-        n.positive('Diameter must be more than zero.').max(cmToDisplay(units, limits.widestDiameterCm), `At most ${most(limits.widestDiameterCm * 10, 'length-small', 0)}.`),
+      widestDiameterCm: typedNumber(say(t(($) => $.what.widest, { unit: len })), (n) =>
+        n
+          .positive(t(($) => $.errors.diameterPositive))
+          .max(cmToDisplay(units, limits.widestDiameterCm), t(($) => $.errors.atMost, { max: most(limits.widestDiameterCm * 10, 'length-small', 0) })),
       ),
-      neckDiameterCm: optionalTypedNumber(`the neck diameter in ${len}`, (n) =>
-        n.positive('Neck diameter must be more than zero.').max(cmToDisplay(units, limits.neckDiameterCm), `At most ${most(limits.neckDiameterCm * 10, 'length-small', 0)}.`),
+      neckDiameterCm: optionalTypedNumber(say(t(($) => $.what.neck, { unit: len })), (n) =>
+        n
+          .positive(t(($) => $.errors.neckPositive))
+          .max(cmToDisplay(units, limits.neckDiameterCm), t(($) => $.errors.atMost, { max: most(limits.neckDiameterCm * 10, 'length-small', 0) })),
       ),
       shape: potShapeSchema,
       clayBody: clayBodySchema,
@@ -66,7 +88,7 @@ export function potFormSchema(units: Units) {
       installedOn: z.string().transform((s) => s || null),
       plotId: z.string().transform((s) => s || null),
       condition: potConditionSchema,
-      notes: z.string().max(limits.notes, `Keep notes under ${limits.notes} characters.`),
+      notes: z.string().max(limits.notes, t(($) => $.errors.notesMax, { max: formatNumber(limits.notes, 0) })),
     })
     .transform((v) => ({
       ...v,
@@ -118,19 +140,21 @@ export function potFormDefaults(units: Units, pot?: Pot): PotFormValues {
 }
 
 /** A seep test as typed: litres (or gallons) lost over so many hours. */
-export function seepTestFormSchema(units: Units) {
+export function seepTestFormSchema(units: Units, t: TFunction<'pots'>) {
   const vol = units.label('volume');
   return z
     .object({
-      testedOn: z.string().min(1, 'Enter the date of the test.'),
+      testedOn: z.string().min(1, t(($) => $.errors.testDate)),
       setting: seepSettingSchema,
-      litresLost: typedNumber(`the water lost in ${vol}`, (n) =>
-        n.min(0, 'Water lost cannot be negative.').max(units.show(limits.litresLost, 'volume'), `At most ${numberText(units.show(limits.litresLost, 'volume'), 1)} ${vol}.`),
+      litresLost: typedNumber(numberMessages(t, t(($) => $.what.lost, { unit: vol })), (n) =>
+        n
+          .min(0, t(($) => $.errors.lostNegative))
+          .max(units.show(limits.litresLost, 'volume'), t(($) => $.errors.atMost, { max: `${formatNumber(units.show(limits.litresLost, 'volume'), 1)} ${vol}` })),
       ),
-      hours: typedNumber('how many hours the test ran', (n) =>
-        n.positive('The test must last some time.').max(limits.hours, `Seep tests longer than two weeks (${limits.hours} hours) are not plausible.`),
+      hours: typedNumber(numberMessages(t, t(($) => $.what.hours)), (n) =>
+        n.positive(t(($) => $.errors.hoursPositive)).max(limits.hours, t(($) => $.errors.hoursMax, { hours: limits.hours })),
       ),
-      notes: z.string().max(1000, 'Keep notes under 1,000 characters.'),
+      notes: z.string().max(1000, t(($) => $.errors.notesMax, { max: formatNumber(1000, 0) })),
     })
     .transform((v) => ({ ...v, litresLost: units.toSI(v.litresLost, 'volume') }))
     .pipe(finalCheck(createSeepTestInputSchema));

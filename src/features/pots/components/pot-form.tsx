@@ -1,17 +1,19 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMemo, useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import { CONE_IDS } from '@shared/agronomy/pyrometric-cones';
-import { clayBodySchema, potMakeLabels, potMakeSchema, potShapeLabels, potShapeSchema, type CreatePotInput, type Pot } from '@shared/schemas/pots';
+import { clayBodySchema, potConditionSchema, potMakeSchema, potShapeSchema, type CreatePotInput, type Pot } from '@shared/schemas/pots';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField, TextareaField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/form-errors';
 import { useUnits } from '@/lib/units';
 import { potFormDefaults, potFormSchema, type PotFormValues } from './pot-form-schema';
-import { clayBodyLabels, coneDegrees, coneExplanation, conditionLabels } from './pot-labels';
+import { coneDegrees, coneExplanation } from './pot-labels';
 import { PlotOptions } from './plot-options';
 import type { PlotChoice, RenderCaution } from './types';
+import { usePotMessages } from './schema-messages';
 
 interface PotFormProps {
   pot?: Pot;
@@ -25,7 +27,10 @@ interface PotFormProps {
 /** Add or edit a pot: sizes in the reader's units, stored in SI through the shared schema. */
 export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit, onCancel }: PotFormProps) {
   const units = useUnits();
-  const schema = useMemo(() => potFormSchema(units), [units]);
+  const { t } = useTranslation('pots');
+  const { t: tc } = useTranslation('common');
+  const m = usePotMessages();
+  const schema = useMemo(() => potFormSchema(units, t), [units, t]);
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, watch, formState } = useForm<PotFormValues, unknown, CreatePotInput>({
     resolver: zodResolver(schema),
@@ -61,84 +66,84 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
     <form onSubmit={submit} noValidate className="space-y-4" aria-label={submitLabel}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        <InputField id={`${idPrefix}-label`} label="Label" placeholder="North bed, pot 1" autoComplete="off" {...register('label')} error={e.label?.message} />
+        <InputField id={`${idPrefix}-label`} label={t(($) => $.form.label)} placeholder={t(($) => $.form.labelPlaceholder)} autoComplete="off" {...register('label')} error={m(e.label?.message)} />
         <InputField
           id={`${idPrefix}-capacity`}
-          label={`Capacity (${units.label('volume')})`}
+          label={t(($) => $.form.capacity, { unit: units.label('volume') })}
           inputMode="decimal"
           className="text-right"
           {...register('capacityL')}
-          error={e.capacityL?.message}
+          error={m(e.capacityL?.message)}
         />
         <InputField
           id={`${idPrefix}-widest`}
-          label={`Widest diameter (${len})`}
+          label={t(($) => $.form.widest, { unit: len })}
           inputMode="decimal"
           className="text-right"
-          hint="Outside, at the fattest part of the body."
+          hint={t(($) => $.form.widestHint)}
           {...register('widestDiameterCm')}
-          error={e.widestDiameterCm?.message}
+          error={m(e.widestDiameterCm?.message)}
         />
         <InputField
           id={`${idPrefix}-neck`}
-          label={`Neck diameter (${len}, optional)`}
+          label={t(($) => $.form.neck, { unit: len })}
           inputMode="decimal"
           className="text-right"
           {...register('neckDiameterCm')}
-          error={e.neckDiameterCm?.message}
+          error={m(e.neckDiameterCm?.message)}
         />
-        <InputField id={`${idPrefix}-height`} label={`Height (${len}, optional)`} inputMode="decimal" className="text-right" {...register('heightCm')} error={e.heightCm?.message} />
-        <SelectField id={`${idPrefix}-shape`} label="Shape" {...register('shape')} error={e.shape?.message}>
+        <InputField id={`${idPrefix}-height`} label={t(($) => $.form.height, { unit: len })} inputMode="decimal" className="text-right" {...register('heightCm')} error={m(e.heightCm?.message)} />
+        <SelectField id={`${idPrefix}-shape`} label={t(($) => $.form.shape)} {...register('shape')} error={m(e.shape?.message)}>
           {potShapeSchema.options.map((s) => (
             <option key={s} value={s}>
-              {potShapeLabels[s]}
+              {t(($) => $.shapes[s])}
             </option>
           ))}
         </SelectField>
-        <SelectField id={`${idPrefix}-make`} label="How it was made" {...register('make')} error={e.make?.message}>
+        <SelectField id={`${idPrefix}-make`} label={t(($) => $.form.make)} {...register('make')} error={m(e.make?.message)}>
           {potMakeSchema.options.map((m) => (
             <option key={m} value={m}>
-              {potMakeLabels[m]}
+              {t(($) => $.makes[m])}
             </option>
           ))}
         </SelectField>
-        <SelectField id={`${idPrefix}-clay`} label="Clay body" {...register('clayBody')} error={e.clayBody?.message}>
+        <SelectField id={`${idPrefix}-clay`} label={t(($) => $.form.clay)} {...register('clayBody')} error={m(e.clayBody?.message)}>
           {clayBodySchema.options.map((c) => (
             <option key={c} value={c}>
-              {clayBodyLabels[c]}
+              {t(($) => $.clays[c])}
             </option>
           ))}
         </SelectField>
         <SelectField
           id={`${idPrefix}-cone`}
-          label="Firing cone (optional)"
+          label={t(($) => $.form.cone)}
           {...register('firingCone')}
-          error={e.firingCone?.message}
-          hint={cone ? coneExplanation(cone, units.system) : 'The pyrometric cone the pot was fired to, if the maker says.'}
+          error={m(e.firingCone?.message)}
+          hint={cone ? coneExplanation(cone, units.system, t) : t(($) => $.form.coneHint)}
         >
-          <option value="">Not known</option>
+          <option value="">{t(($) => $.form.coneUnknown)}</option>
           {CONE_IDS.map((c) => (
             <option key={c} value={c}>
-              Cone {c} ({coneDegrees(c, units.system)})
+              {t(($) => $.cone.option, { cone: c, degrees: coneDegrees(c, units.system) })}
             </option>
           ))}
         </SelectField>
-        <InputField id={`${idPrefix}-installed`} type="date" label="Buried on (optional)" {...register('installedOn')} error={e.installedOn?.message} />
-        <SelectField id={`${idPrefix}-plot`} label="Where it sits" {...register('plotId')} error={e.plotId?.message}>
+        <InputField id={`${idPrefix}-installed`} type="date" label={t(($) => $.form.installed)} {...register('installedOn')} error={m(e.installedOn?.message)} />
+        <SelectField id={`${idPrefix}-plot`} label={t(($) => $.form.where)} {...register('plotId')} error={m(e.plotId?.message)}>
           <PlotOptions choices={plotChoices} current={pot} />
         </SelectField>
-        <SelectField id={`${idPrefix}-condition`} label="Condition" {...register('condition')} error={e.condition?.message}>
-          {Object.entries(conditionLabels).map(([k, v]) => (
+        <SelectField id={`${idPrefix}-condition`} label={t(($) => $.form.condition)} {...register('condition')} error={m(e.condition?.message)}>
+          {potConditionSchema.options.map((k) => (
             <option key={k} value={k}>
-              {v}
+              {t(($) => $.conditions[k])}
             </option>
           ))}
         </SelectField>
       </div>
-      <TextareaField id={`${idPrefix}-notes`} label="Notes (optional)" placeholder="Where it came from, lid, repairs…" {...register('notes')} error={e.notes?.message} />
+      <TextareaField id={`${idPrefix}-notes`} label={t(($) => $.form.notes)} placeholder={t(($) => $.form.notesPlaceholder)} {...register('notes')} error={m(e.notes?.message)} />
       {plot && plot.treatment && plot.treatment !== 'olla' ? (
         <Alert tone="warning">
-          Plot {plot.label} is a “{plot.treatment}” plot. A pot there waters the comparison bed too, and the trial no longer compares pots with {plot.treatment} watering.
+          {t(($) => $.form.otherTreatment, { plot: plot.label, treatment: plot.treatment === 'surface' ? t(($) => $.treatments.surface) : plot.treatment })}
         </Alert>
       ) : null}
       {twin ? renderCaution('twinPotAdhesive', { headingLevel: 4 }) : null}
@@ -146,10 +151,10 @@ export function PotForm({ pot, plotChoices, renderCaution, submitLabel, onSubmit
       {plot && !plot.lid ? renderCaution('openPotMosquitoes', { headingLevel: 4 }) : null}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" size="lg" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Saving…' : submitLabel}
+          {formState.isSubmitting ? t(($) => $.form.saving) : submitLabel}
         </Button>
         <Button variant="secondary" size="lg" onClick={onCancel} disabled={formState.isSubmitting}>
-          Cancel
+          {tc(($) => $.actions.cancel)}
         </Button>
       </div>
     </form>

@@ -1,14 +1,13 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { potConditionSchema, type PotCondition } from '@shared/schemas/pots';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { plural } from '@/lib/format';
 import { cn } from '@/lib/utils';
 import { useCreatePot } from '../api/create-pot';
 import { usePots } from '../api/get-pots';
 import { cautionAnchors, PotCard } from './pot-card';
 import { PotForm } from './pot-form';
-import { conditionLabels } from './pot-labels';
 import type { PlotChoice, RenderCaution } from './types';
 
 type Filter = 'all' | PotCondition;
@@ -18,6 +17,7 @@ type Filter = 'all' | PotCondition;
  * move, mark and delete pots; seep tests per pot. Plots come from the route (the trials' data).
  */
 export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoices: PlotChoice[]; plotsError?: string | null; renderCaution: RenderCaution }) {
+  const { t } = useTranslation('pots');
   const pots = usePots();
   const create = useCreatePot();
   const [adding, setAdding] = useState(false);
@@ -33,30 +33,30 @@ export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoic
   const openPlots = new Set(plotChoices.filter((p) => !p.lid).map((p) => p.id));
   const anyOpen = all.some((p) => p.plotId && openPlots.has(p.plotId));
   const filters: { id: Filter; label: string; count: number }[] = [
-    { id: 'all', label: 'All', count: all.length },
-    ...potConditionSchema.options.map((c) => ({ id: c, label: conditionLabels[c], count: counts[c] })),
+    { id: 'all', label: t(($) => $.shelf.all), count: all.length },
+    ...potConditionSchema.options.map((c) => ({ id: c, label: t(($) => $.conditions[c]), count: counts[c] })),
   ];
 
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-end gap-3">
         <div className="min-w-0 flex-1">
-          <h1>Pot shelf</h1>
+          <h1>{t(($) => $.shelf.title)}</h1>
           <p className="text-ink-muted">
             {pots.isSuccess && all.length
-              ? `${plural(all.length, 'pot')}: ${placed} in plots, ${all.length - placed} on the shelf.`
-              : 'Every pot you own, with its seep tests and condition over the seasons.'}
+              ? t(($) => $.shelf.summary, { pots: t(($) => $.shelf.pots, { count: all.length }), placed, shelved: all.length - placed })
+              : t(($) => $.shelf.intro)}
           </p>
         </div>
         <Button id="add-pot-button" size="lg" aria-expanded={adding} aria-controls="add-pot" onClick={() => setAdding((v) => !v)}>
-          {adding ? 'Close the form' : 'Add a pot'}
+          {adding ? t(($) => $.shelf.closeForm) : t(($) => $.shelf.add)}
         </Button>
       </div>
 
       <p className="rounded-lg border border-slate-200 bg-slate-50 px-4 py-3 text-sm text-slate-800">
-        Before the first frost, empty and lift your pots: a wall soaked with water splits when it freezes.{' '}
+        {t(($) => $.shelf.frostNote)}{' '}
         <a href={`#${cautionAnchors.frost}`} className="font-medium underline">
-          More on frost
+          {t(($) => $.shelf.moreOnFrost)}
         </a>
       </p>
 
@@ -64,19 +64,19 @@ export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoic
         <Alert tone="success" className="flex items-center justify-between gap-3">
           <span>{message}</span>
           <Button variant="ghost" size="sm" onClick={() => setMessage(null)}>
-            Dismiss
+            {t(($) => $.shelf.dismiss)}
           </Button>
         </Alert>
       ) : null}
-      {plotsError ? <Alert tone="warning">Your plots could not be loaded ({plotsError}); pots can still be added to the shelf.</Alert> : null}
+      {plotsError ? <Alert tone="warning">{t(($) => $.shelf.plotsError, { error: plotsError })}</Alert> : null}
 
       {adding ? (
         <section id="add-pot" aria-labelledby="add-pot-heading" className="space-y-3 rounded-card border border-sand-200 bg-white p-4 shadow-sm sm:p-5">
-          <h2 id="add-pot-heading">Add a pot</h2>
+          <h2 id="add-pot-heading">{t(($) => $.shelf.add)}</h2>
           <PotForm
             plotChoices={plotChoices}
             renderCaution={renderCaution}
-            submitLabel="Add pot"
+            submitLabel={t(($) => $.shelf.addPot)}
             onCancel={() => {
               setAdding(false);
               focusAddButton();
@@ -85,7 +85,7 @@ export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoic
               create.mutateAsync(input).then((p) => {
                 setAdding(false);
                 setFilter('all');
-                setMessage(`${p.label} is on your shelf${p.plotLabel ? ` and placed in plot ${p.plotLabel}` : ''}.`);
+                setMessage(p.plotLabel ? t(($) => $.shelf.addedPlaced, { pot: p.label, plot: p.plotLabel }) : t(($) => $.shelf.added, { pot: p.label }));
                 focusAddButton();
               })
             }
@@ -95,11 +95,11 @@ export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoic
 
       <section aria-labelledby="pots-heading" className="space-y-4">
         <h2 id="pots-heading" className="sr-only">
-          Your pots
+          {t(($) => $.shelf.yourPots)}
         </h2>
         {all.length ? (
           <fieldset>
-            <legend className="mb-2 text-sm font-medium">Show pots by condition</legend>
+            <legend className="mb-2 text-sm font-medium">{t(($) => $.shelf.filter)}</legend>
             <div className="flex flex-wrap gap-2">
               {filters.map((f) => (
                 <label
@@ -118,15 +118,15 @@ export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoic
           </fieldset>
         ) : null}
 
-        {pots.isPending ? <p role="status">Loading your pots…</p> : null}
-        {pots.isError ? <Alert tone="error">Could not load your pots: {pots.error.message}</Alert> : null}
+        {pots.isPending ? <p role="status">{t(($) => $.shelf.loading)}</p> : null}
+        {pots.isError ? <Alert tone="error">{t(($) => $.shelf.loadError, { error: pots.error.message })}</Alert> : null}
         {pots.isSuccess && all.length === 0 && !adding ? (
           <div className="rounded-card border border-dashed border-sand-300 bg-white p-6 text-center">
-            <p className="font-medium">Your shelf is empty.</p>
-            <p className="text-ink-muted">Add each pot you own, test how fast it seeps, then place it in a plot.</p>
+            <p className="font-medium">{t(($) => $.shelf.empty)}</p>
+            <p className="text-ink-muted">{t(($) => $.shelf.emptyHint)}</p>
           </div>
         ) : null}
-        {pots.isSuccess && all.length > 0 && shown.length === 0 ? <p className="text-ink-muted">No {conditionLabels[filter as PotCondition].toLowerCase()} pots.</p> : null}
+        {pots.isSuccess && all.length > 0 && shown.length === 0 ? <p className="text-ink-muted">{t(($) => $.shelf.noneWith[filter as PotCondition])}</p> : null}
 
         <ul role="list" className="grid gap-4 md:grid-cols-2">
           {shown.map((pot) => (
@@ -139,7 +139,7 @@ export function PotShelf({ plotChoices, plotsError, renderCaution }: { plotChoic
       </section>
 
       <section aria-labelledby="care-heading" className="space-y-3">
-        <h2 id="care-heading">Cautions for your pots</h2>
+        <h2 id="care-heading">{t(($) => $.shelf.cautions)}</h2>
         {anyTwin ? <div id={cautionAnchors.twinPotAdhesive} className="scroll-mt-6">{renderCaution('twinPotAdhesive')}</div> : null}
         {anyOpen ? <div id={cautionAnchors.openPotMosquitoes} className="scroll-mt-6">{renderCaution('openPotMosquitoes')}</div> : null}
         <div id={cautionAnchors.frost} className="scroll-mt-6">

@@ -18,9 +18,10 @@ export interface RoundSendState {
 }
 
 const sizeOf = (v: unknown) => (v as RoundSaveVariables | undefined)?.input.entries.length ?? 0;
+/** The server's reason for a refused save; empty when it gave none (the screen then says it in the reader's language). */
 const messageOf = (e: unknown): string => {
   const m = e && typeof e === 'object' && 'message' in e ? e.message : null;
-  return typeof m === 'string' && m ? m : 'The server did not accept these records.';
+  return typeof m === 'string' ? m : '';
 };
 
 /**

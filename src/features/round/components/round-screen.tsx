@@ -1,7 +1,11 @@
 import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { formatNumber } from '@/lib/format';
+import { parseDecimal } from '@/lib/parse-number';
 import { useUnits } from '@/lib/units';
 import { cn } from '@/lib/utils';
 import { useRound, type RoundPot } from '../api/get-round';
@@ -56,14 +60,14 @@ function fromInput(input: RoundInput): Record<string, Entry> {
   return out;
 }
 
-const records = (n: number) => `${n} record${n === 1 ? '' : 's'}`;
-
 /** Days since an ISO instant, for "last refilled 2 days ago". */
-function daysAgo(iso: string | null): string {
-  if (!iso) return 'never';
+function daysAgo(iso: string | null, t: TFunction<'round'>): string {
+  if (!iso) return t(($) => $.never);
   const d = Math.floor((Date.now() - Date.parse(iso)) / 86_400_000);
-  return d <= 0 ? 'today' : d === 1 ? 'yesterday' : `${d} days ago`;
+  return d <= 0 ? t(($) => $.today) : d === 1 ? t(($) => $.yesterday) : t(($) => $.daysAgo, { count: d });
 }
+
+const potConditions = ['sound', 'cracked', 'clogged', 'retired'] as const;
 
 /** Litres left now: capacity minus what the last seep test says it lost since the last refill. */
 function estimatedLevel(p: RoundPot): number | null {
@@ -78,6 +82,12 @@ function estimatedLevel(p: RoundPot): number | null {
  */
 export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; title: string; focusPotId?: string | null }) {
   const units = useUnits();
+  const { t } = useTranslation('round');
+  const records = (n: number) => t(($) => $.records, { count: n });
+  const conditionText = (c: string) => {
+    const known = potConditions.find((x) => x === c);
+    return known ? t(($) => $.conditions[known]) : c;
+  };
   const round = useRound(trialId);
   const save = useSaveRound(trialId);
   const [entries, setEntries] = useState<Record<string, Entry>>({});
@@ -106,7 +116,7 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
   }, [focusPotId, round.data]);
   const plotLabel = (id: string) => round.data?.plots.find((p) => p.id === id)?.label ?? '';
 
-  if (round.isPending) return <p role="status">Loading your pots…</p>;
+  if (round.isPending) return <p role="status">{t(($) => $.loading)}</p>;
   if (round.isError) return <Alert tone="error">{round.error.message}</Alert>;
 
   const toggle = (key: string, entry: Entry) =>
@@ -145,14 +155,14 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
             <p className="font-semibold">{heading}</p>
             <p className="text-sm text-ink-muted">
               {sub}
-              {sending.waitingFor.has(key) ? <span className="font-medium text-terracotta-700"> · watered, waiting to send</span> : null}
+              {sending.waitingFor.has(key) ? <span className="font-medium text-terracotta-700">{t(($) => $.waitingToSend)}</span> : null}
             </p>
             {level !== null && capacity ? (
-              <div className="mt-1 flex items-center gap-2" aria-label={`Estimated ${Math.round((level / capacity) * 100)}% full`}>
+              <div className="mt-1 flex items-center gap-2" aria-label={t(($) => $.estimatedFull, { pct: formatNumber((level / capacity) * 100, 0) })}>
                 <div className="h-2 w-24 overflow-hidden rounded bg-sand-200">
                   <div className={cn('h-full', level / capacity < 0.25 ? 'bg-terracotta-600' : 'bg-sage-500')} style={{ width: `${(level / capacity) * 100}%` }} />
                 </div>
-                <span className="text-xs text-ink-muted">~{Math.round((level / capacity) * 100)}% left</span>
+                <span className="text-xs text-ink-muted">{t(($) => $.left, { pct: formatNumber((level / capacity) * 100, 0) })}</span>
               </div>
             ) : null}
           </div>
@@ -169,10 +179,10 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
         </div>
         {on ? (
           <div className="mt-2 flex items-center justify-end gap-2">
-            <Button size="md" variant="secondary" aria-label={`Less water for ${heading}`} onClick={() => adjust(key, -step)}>
+            <Button size="md" variant="secondary" aria-label={t(($) => $.lessWater, { name: heading })} onClick={() => adjust(key, -step)}>
               −
             </Button>
-            <Button size="md" variant="secondary" aria-label={`More water for ${heading}`} onClick={() => adjust(key, step)}>
+            <Button size="md" variant="secondary" aria-label={t(($) => $.moreWater, { name: heading })} onClick={() => adjust(key, step)}>
               +
             </Button>
           </div>
@@ -184,13 +194,13 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
   return (
     <div className="mx-auto max-w-xl space-y-5 pb-28">
       <div>
-        <p className="text-sm text-ink-muted">Today&apos;s round</p>
+        <p className="text-sm text-ink-muted">{t(($) => $.todaysRound)}</p>
         <h1>{title}</h1>
-        <p className="text-sm text-ink-muted">Tap each pot you refilled (the last volume is filled in; adjust with − and +), then save once at the bottom.</p>
+        <p className="text-sm text-ink-muted">{t(($) => $.intro)}</p>
       </div>
       {refusal ? (
         <Alert tone="error">
-          {refusal.message} Nothing was saved; your taps are back, so you can correct them and save again.{' '}
+          {t(($) => $.refused, { message: refusal.message || t(($) => $.refusedDefault) })}{' '}
           <button
             type="button"
             className="font-medium underline"
@@ -200,32 +210,32 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
               setRefusal(null);
             }}
           >
-            Discard them
+            {t(($) => $.discard)}
           </button>
         </Alert>
       ) : null}
       {sending.waiting > 0 && sending.queued ? (
         <Alert tone="warning">
-          <strong>Saved on this phone — waiting to send ({sending.waiting})</strong>
-          <span className="block">They are sent by themselves when the connection returns. You can keep logging.</span>
+          <strong>{t(($) => $.savedOnPhone, { count: sending.waiting })}</strong>
+          <span className="block">{t(($) => $.sentByThemselves)}</span>
         </Alert>
       ) : sending.waiting > 0 ? (
-        <Alert tone="info">Sending {records(sending.waiting)}…</Alert>
+        <Alert tone="info">{t(($) => $.sending, { records: records(sending.waiting) })}</Alert>
       ) : sending.sent ? (
-        <Alert tone="success">{sending.sent.waited ? `Sent — ${records(sending.sent.n)} saved.` : `Saved ${records(sending.sent.n)}.`}</Alert>
+        <Alert tone="success">{sending.sent.waited ? t(($) => $.sentAfterWait, { records: records(sending.sent.n) }) : t(($) => $.saved, { records: records(sending.sent.n) })}</Alert>
       ) : null}
       <section aria-labelledby="pots-heading" className="space-y-2">
         <h2 id="pots-heading" className="text-lg">
-          Pots ({pots.length})
+          {t(($) => $.pots, { count: pots.length })}
         </h2>
-        {pots.length === 0 ? <p className="text-ink-muted">No pots are placed in this trial&apos;s plots yet. Place them from the Pot shelf.</p> : null}
+        {pots.length === 0 ? <p className="text-ink-muted">{t(($) => $.noPots)}</p> : null}
         <ul className="space-y-2">
           {pots.map((p) =>
             row(
               `pot:${p.id}`,
               { kind: 'refill', potId: p.id, plotId: p.plotId, volume: p.lastRefillL ?? p.capacityL },
-              `${p.label} · plot ${plotLabel(p.plotId)}`,
-              `${units.fmt(p.capacityL, 'volume', 1)} pot · last refilled ${daysAgo(p.lastRefillAt)}${p.condition !== 'sound' ? ` · ${p.condition}` : ''}`,
+              t(($) => $.potHeading, { pot: p.label, plot: plotLabel(p.plotId) }),
+              `${t(($) => $.potSub, { capacity: units.fmt(p.capacityL, 'volume', 1), ago: daysAgo(p.lastRefillAt, t) })}${p.condition !== 'sound' ? ` · ${conditionText(p.condition)}` : ''}`,
               estimatedLevel(p),
               p.capacityL,
             ),
@@ -234,15 +244,15 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
       </section>
       <section aria-labelledby="surface-heading" className="space-y-2">
         <h2 id="surface-heading" className="text-lg">
-          Surface-watered plots ({surfacePlots.length})
+          {t(($) => $.surfacePlots, { count: surfacePlots.length })}
         </h2>
         <ul className="space-y-2">
           {surfacePlots.map((p) =>
             row(
               `plot:${p.id}`,
               { kind: 'surface', plotId: p.id, volume: p.lastSurfaceL ?? 10 },
-              `Plot ${p.label}`,
-              `${units.fmt(p.areaM2, 'area', 1)} · last watered ${daysAgo(p.lastWateredAt)}`,
+              t(($) => $.plotHeading, { plot: p.label }),
+              t(($) => $.plotSub, { area: units.fmt(p.areaM2, 'area', 1), ago: daysAgo(p.lastWateredAt, t) }),
               null,
               null,
             ),
@@ -266,7 +276,7 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
       <div className="fixed inset-x-0 bottom-0 border-t border-sand-200 bg-white/95 p-3 backdrop-blur">
         <div className="mx-auto max-w-xl">
           <Button size="lg" className="w-full" disabled={count === 0} onClick={submit}>
-            {count === 0 ? 'Tap what you watered' : `Save ${records(count)}`}
+            {count === 0 ? t(($) => $.tapWhat) : t(($) => $.save, { records: records(count) })}
           </Button>
         </div>
       </div>
@@ -296,20 +306,22 @@ function ExtraEntries({
   const [mass, setMass] = useState('');
   const [count, setCount] = useState('');
   const [error, setError] = useState<string | null>(null);
+  const { t } = useTranslation('round');
   const label = (id: string) => plots.find((p) => p.id === id)?.label ?? '';
   const range = moistureRanges[method];
   const addReading = () => {
-    const v = Number(reading.replace(',', '.'));
-    if (reading === '' || !Number.isFinite(v) || v < range.min || v > range.max) return setError(`${range.label} readings are between ${range.min} and ${range.max} ${range.unit}.`);
+    const v = parseDecimal(reading);
+    if (!Number.isFinite(v) || v < range.min || v > range.max)
+      return setError(t(($) => $.extra.rangeError[method], { min: formatNumber(range.min, 0), max: formatNumber(range.max, 0) }));
     setError(null);
     onAdd(`moisture:${plotId}:${Date.now()}`, { kind: 'moisture', plotId, method, depthCm: 15, value: v });
     setReading('');
   };
   const addHarvest = () => {
-    const v = Number(mass.replace(',', '.'));
-    if (mass === '' || !Number.isFinite(v) || v <= 0) return setError('Enter the mass picked.');
-    const c = count === '' ? null : Number(count);
-    if (c !== null && (!Number.isInteger(c) || c < 0)) return setError('The count is a whole number.');
+    const v = parseDecimal(mass);
+    if (!Number.isFinite(v) || v <= 0) return setError(t(($) => $.extra.enterMass));
+    const c = count.trim() === '' ? null : parseDecimal(count);
+    if (c !== null && (!Number.isInteger(c) || c < 0)) return setError(t(($) => $.extra.wholeCount));
     setError(null);
     onAdd(`harvest:${plotId}:${Date.now()}`, { kind: 'harvest', plotId, freshKg: toKg(v), count: c });
     setMass('');
@@ -320,11 +332,11 @@ function ExtraEntries({
   return (
     <section aria-labelledby="extra-heading" className="space-y-3 rounded-card border border-sand-200 bg-white p-3">
       <h2 id="extra-heading" className="text-lg">
-        A reading or a pick
+        {t(($) => $.extra.title)}
       </h2>
       {error ? <Alert tone="error">{error}</Alert> : null}
       <label className="block text-sm font-medium">
-        Plot
+        {t(($) => $.extra.plot)}
         <select className={input} value={plotId} onChange={(e) => setPlotId(e.target.value)}>
           {plots.map((p) => (
             <option key={p.id} value={p.id}>
@@ -335,43 +347,49 @@ function ExtraEntries({
       </label>
       <div className="grid grid-cols-2 gap-2">
         <label className="block text-sm font-medium">
-          Moisture method
+          {t(($) => $.extra.method)}
           <select className={input} value={method} onChange={(e) => setMethod(e.target.value as MoistureMethod)}>
-            <option value="vwc">VWC (%)</option>
-            <option value="tensiometer">Tensiometer (kPa)</option>
-            <option value="probe_index">Probe (1–10)</option>
+            {(['vwc', 'tensiometer', 'probe_index'] as const).map((m) => (
+              <option key={m} value={m}>
+                {t(($) => $.extra.methods[m])}
+              </option>
+            ))}
           </select>
         </label>
         <label className="block text-sm font-medium">
-          Reading ({range.unit})
+          {t(($) => $.extra.reading, { unit: range.unit === 'index' ? '1–10' : range.unit })}
           <input className={input} inputMode="decimal" value={reading} onChange={(e) => setReading(e.target.value)} />
         </label>
       </div>
       <Button variant="secondary" className="w-full" size="lg" onClick={addReading}>
-        Add reading
+        {t(($) => $.extra.addReading)}
       </Button>
       <div className="grid grid-cols-2 gap-2">
         <label className="block text-sm font-medium">
-          Picked ({massLabel})
+          {t(($) => $.extra.picked, { unit: massLabel })}
           <input className={input} inputMode="decimal" value={mass} onChange={(e) => setMass(e.target.value)} />
         </label>
         <label className="block text-sm font-medium">
-          Fruits (optional)
+          {t(($) => $.extra.fruits)}
           <input className={input} inputMode="numeric" value={count} onChange={(e) => setCount(e.target.value)} />
         </label>
       </div>
       <Button variant="secondary" className="w-full" size="lg" onClick={addHarvest}>
-        Add pick
+        {t(($) => $.extra.addPick)}
       </Button>
       {pending.length ? (
         <ul className="space-y-1 text-sm">
           {pending.map(([key, e]) => (
             <li key={key} className="flex items-center gap-2">
               <span>
-                {e.kind === 'moisture' ? `Reading ${e.value} on ${label(e.plotId)}` : e.kind === 'harvest' ? `Pick on ${label(e.plotId)}` : ''}
+                {e.kind === 'moisture'
+                  ? t(($) => $.extra.readingOn, { value: formatNumber(e.value, 2), plot: label(e.plotId) })
+                  : e.kind === 'harvest'
+                    ? t(($) => $.extra.pickOn, { plot: label(e.plotId) })
+                    : ''}
               </span>
               <Button variant="ghost" size="sm" className="ml-auto" onClick={() => onRemove(key)}>
-                Remove
+                {t(($) => $.extra.remove)}
               </Button>
             </li>
           ))}

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
@@ -16,6 +17,7 @@ export interface ShareableCohort {
  * with the location coarsened; withdrawing removes it from every cohort view and later export.
  */
 export function SharePanel({ trialId, cohorts }: { trialId: string; cohorts: ShareableCohort[] }) {
+  const { t } = useTranslation('trials');
   const shares = useShares(trialId);
   const share = useShareTrial(trialId);
   const withdraw = useWithdrawShare(trialId);
@@ -25,31 +27,28 @@ export function SharePanel({ trialId, cohorts }: { trialId: string; cohorts: Sha
   const error = share.error ?? withdraw.error;
   return (
     <section aria-labelledby="share-heading" className="space-y-3">
-      <h2 id="share-heading">Sharing with cohorts</h2>
-      <p className="text-sm text-ink-muted">
-        A cohort sees this trial under your pseudonym, with the garden located only roughly and without its name. You can withdraw it at any time; it then
-        disappears from the cohort&apos;s pages and from later exports.
-      </p>
+      <h2 id="share-heading">{t(($) => $.share.title)}</h2>
+      <p className="text-sm text-ink-muted">{t(($) => $.share.intro)}</p>
       {error ? <Alert tone="error">{error.message}</Alert> : null}
       {active.length ? (
         <ul className="space-y-2">
           {active.map((s) => (
             <li key={s.cohortId} className="flex flex-wrap items-center gap-3 rounded-lg border border-sand-200 bg-white px-3 py-2">
               <span className="font-medium">{s.cohortName}</span>
-              <span className="text-sm text-ink-muted">shared {formatDate(s.sharedAt)}</span>
+              <span className="text-sm text-ink-muted">{t(($) => $.share.shared, { date: formatDate(s.sharedAt) })}</span>
               <Button variant="secondary" size="sm" className="ml-auto" onClick={() => withdraw.mutate(s.cohortId)} disabled={withdraw.isPending}>
-                Withdraw
+                {t(($) => $.share.withdraw)}
               </Button>
             </li>
           ))}
         </ul>
       ) : (
-        <p className="text-sm">Not shared with any cohort.</p>
+        <p className="text-sm">{t(($) => $.share.none)}</p>
       )}
       {candidates.length ? (
         <div className="flex flex-wrap items-end gap-3">
-          <SelectField label="Share with" value={choice} onChange={(e) => setChoice(e.target.value)}>
-            <option value="">Choose a cohort…</option>
+          <SelectField label={t(($) => $.share.with)} value={choice} onChange={(e) => setChoice(e.target.value)}>
+            <option value="">{t(($) => $.share.choose)}</option>
             {candidates.map((c) => (
               <option key={c.id} value={c.id}>
                 {c.name}
@@ -57,11 +56,11 @@ export function SharePanel({ trialId, cohorts }: { trialId: string; cohorts: Sha
             ))}
           </SelectField>
           <Button disabled={!choice || share.isPending} onClick={() => share.mutate(choice, { onSuccess: () => setChoice('') })}>
-            Share this trial
+            {t(($) => $.share.share)}
           </Button>
         </div>
       ) : cohorts.length === 0 ? (
-        <p className="text-sm text-ink-muted">Join a cohort as a contributor (Cohorts page) to share this trial.</p>
+        <p className="text-sm text-ink-muted">{t(($) => $.share.join)}</p>
       ) : null}
     </section>
   );

@@ -1,32 +1,34 @@
+import { useTranslation } from 'react-i18next';
 import { Link } from 'react-router-dom';
-import { cropLabels, type Trial } from '@shared/schemas/trials';
+import type { Trial } from '@shared/schemas/trials';
 import { formatDate } from '@/lib/format';
 import { StatusBadge } from './status-bar';
 
 /** Trials at a glance: state, crop, plots and what was last logged. */
 export function TrialCards({ trials, trialPath, roundPath }: { trials: Trial[]; trialPath: (id: string) => string; roundPath: (id: string) => string }) {
-  if (!trials.length) return <p className="text-ink-muted">No trials yet.</p>;
+  const { t } = useTranslation('trials');
+  if (!trials.length) return <p className="text-ink-muted">{t(($) => $.cards.none)}</p>;
   return (
     <ul className="grid gap-3 sm:grid-cols-2">
-      {trials.map((t) => (
-        <li key={t.id} className="rounded-card border border-sand-200 bg-white p-4">
+      {trials.map((tr) => (
+        <li key={tr.id} className="rounded-card border border-sand-200 bg-white p-4">
           <div className="flex items-start gap-2">
-            <Link to={trialPath(t.id)} className="text-lg font-semibold text-ink underline decoration-sand-300 underline-offset-4 hover:decoration-terracotta-500">
-              {t.title}
+            <Link to={trialPath(tr.id)} className="text-lg font-semibold text-ink underline decoration-sand-300 underline-offset-4 hover:decoration-terracotta-500">
+              {tr.title}
             </Link>
             <span className="ml-auto">
-              <StatusBadge status={t.status} />
+              <StatusBadge status={tr.status} />
             </span>
           </div>
           <p className="mt-1 text-sm text-ink-muted">
-            {t.crop === 'other' ? t.cropName : cropLabels[t.crop]}
-            {t.variety ? ` · ${t.variety}` : ''} · planted {formatDate(t.plantingDate)} · {t.plotCount} plot{t.plotCount === 1 ? '' : 's'}
-            {t.gardenName ? ` · ${t.gardenName}` : ''}
+            {tr.crop === 'other' ? tr.cropName : t(($) => $.crops[tr.crop])}
+            {tr.variety ? ` · ${tr.variety}` : ''} · {t(($) => $.cards.planted, { date: formatDate(tr.plantingDate) })} · {t(($) => $.cards.plots, { count: tr.plotCount })}
+            {tr.gardenName ? ` · ${tr.gardenName}` : ''}
           </p>
-          <p className="mt-1 text-sm">{t.lastLoggedAt ? `Last logged ${formatDate(t.lastLoggedAt)}` : 'Nothing logged yet'}</p>
-          {t.status === 'active' && t.access === 'owner' ? (
-            <Link to={roundPath(t.id)} className="mt-3 inline-flex min-h-11 items-center rounded-lg bg-terracotta-600 px-4 font-medium text-white hover:bg-terracotta-700">
-              Start today&apos;s round
+          <p className="mt-1 text-sm">{tr.lastLoggedAt ? t(($) => $.cards.lastLogged, { date: formatDate(tr.lastLoggedAt) }) : t(($) => $.cards.nothingLogged)}</p>
+          {tr.status === 'active' && tr.access === 'owner' ? (
+            <Link to={roundPath(tr.id)} className="mt-3 inline-flex min-h-11 items-center rounded-lg bg-terracotta-600 px-4 font-medium text-white hover:bg-terracotta-700">
+              {t(($) => $.cards.startRound)}
             </Link>
           ) : null}
         </li>

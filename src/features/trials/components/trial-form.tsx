@@ -1,17 +1,21 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import type { z } from 'zod';
-import { createTrialInputSchema, cropIds, cropLabels, type CreateTrialInput, type Trial } from '@shared/schemas/trials';
+import { createTrialInputSchema, cropIds, type CreateTrialInput, type Trial } from '@shared/schemas/trials';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField, TextareaField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/form-errors';
+import { useTrialMessages } from './schema-messages';
 
 type FormValues = z.input<typeof createTrialInputSchema>;
 
 /** Trial setup: crop, dates and the question. Paired olla-versus-surface is the default design. */
 export function TrialForm({ trial, onSubmit, submitLabel }: { trial?: Trial; onSubmit: (input: CreateTrialInput) => Promise<unknown>; submitLabel: string }) {
+  const { t } = useTranslation('trials');
+  const m = useTrialMessages();
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, watch, formState } = useForm<FormValues, unknown, CreateTrialInput>({
     resolver: zodResolver(createTrialInputSchema),
@@ -32,35 +36,35 @@ export function TrialForm({ trial, onSubmit, submitLabel }: { trial?: Trial; onS
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-label={submitLabel}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
-      <InputField label="Trial title" placeholder="Tomatoes by the south fence, 2027" {...register('title')} error={e.title?.message} />
+      <InputField label={t(($) => $.form.title)} placeholder={t(($) => $.form.titlePlaceholder)} {...register('title')} error={m(e.title?.message)} />
       <div className="grid gap-4 sm:grid-cols-3">
-        <SelectField label="Crop" {...register('crop')} error={e.crop?.message}>
+        <SelectField label={t(($) => $.form.crop)} {...register('crop')} error={m(e.crop?.message)}>
           {cropIds.map((c) => (
             <option key={c} value={c}>
-              {cropLabels[c]}
+              {t(($) => $.crops[c])}
             </option>
           ))}
         </SelectField>
-        {crop === 'other' ? <InputField label="Crop name" {...register('cropName')} error={e.cropName?.message} /> : null}
-        <InputField label="Variety" {...register('variety')} error={e.variety?.message} />
+        {crop === 'other' ? <InputField label={t(($) => $.form.cropName)} {...register('cropName')} error={m(e.cropName?.message)} /> : null}
+        <InputField label={t(($) => $.form.variety)} {...register('variety')} error={m(e.variety?.message)} />
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
-        <InputField label="Planting date" type="date" {...register('plantingDate')} error={e.plantingDate?.message} />
-        <InputField label="End date (optional)" type="date" {...register('endDate', { setValueAs: (v: string) => v || null })} error={e.endDate?.message} />
-        <SelectField label="Design" {...register('design')} error={e.design?.message} disabled={Boolean(trial)}>
-          <option value="paired">Paired plots: olla vs surface watering</option>
+        <InputField label={t(($) => $.form.plantingDate)} type="date" {...register('plantingDate')} error={m(e.plantingDate?.message)} />
+        <InputField label={t(($) => $.form.endDate)} type="date" {...register('endDate', { setValueAs: (v: string) => v || null })} error={m(e.endDate?.message)} />
+        <SelectField label={t(($) => $.form.design)} {...register('design')} error={m(e.design?.message)} disabled={Boolean(trial)}>
+          <option value="paired">{t(($) => $.form.designPaired)}</option>
         </SelectField>
       </div>
       <TextareaField
-        label="Your question"
-        placeholder="Do buried pots save water on my tomatoes without costing harvest?"
+        label={t(($) => $.form.question)}
+        placeholder={t(($) => $.form.questionPlaceholder)}
         {...register('question')}
-        error={e.question?.message}
+        error={m(e.question?.message)}
       />
-      <TextareaField label="Protocol notes" hint="How you measure water, when you pick, anything a reader should know." {...register('protocolNotes')} error={e.protocolNotes?.message} />
-      {e.treatments?.message ? <Alert tone="error">{e.treatments.message}</Alert> : null}
+      <TextareaField label={t(($) => $.form.protocolNotes)} hint={t(($) => $.form.protocolHint)} {...register('protocolNotes')} error={m(e.protocolNotes?.message)} />
+      {e.treatments?.message ? <Alert tone="error">{m(e.treatments.message)}</Alert> : null}
       <Button type="submit" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Saving…' : submitLabel}
+        {formState.isSubmitting ? t(($) => $.form.saving) : submitLabel}
       </Button>
     </form>
   );
