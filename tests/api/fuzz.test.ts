@@ -138,16 +138,22 @@ async function snapshot(): Promise<{ writes: string; sessions: string }> {
   return row!;
 }
 
-/** The one error shape: { error: { code, message, details? } } and nothing else. */
+/**
+ * The one error shape: { error: { code, message, reason?, params?, details? } } and nothing else
+ * (server/lib/app-error.ts; `reason` names the exact case in snake_case for the client to word in
+ * the reader's language, `params` fills its placeholders).
+ */
 function expectErrorShape(body: unknown, where: string) {
-  const b = body as { error?: { code?: unknown; message?: unknown } };
+  const b = body as { error?: { code?: unknown; message?: unknown; reason?: unknown; params?: unknown } };
   expect(Object.keys(b ?? {}), where).toEqual(['error']);
   expect(
-    Object.keys(b.error!).filter((k) => !['code', 'message', 'details'].includes(k)),
+    Object.keys(b.error!).filter((k) => !['code', 'message', 'reason', 'params', 'details'].includes(k)),
     where,
   ).toEqual([]);
   expect(errorCodes as readonly unknown[], where).toContain(b.error!.code);
   expect(typeof b.error!.message, where).toBe('string');
+  if (b.error!.reason !== undefined) expect(b.error!.reason, where).toMatch(/^[a-z][a-z0-9_]*$/);
+  if (b.error!.params !== undefined) expect(typeof b.error!.params, where).toBe('object');
 }
 
 type Body = { raw: string } | { json: unknown };
