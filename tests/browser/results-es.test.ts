@@ -35,12 +35,16 @@ afterAll(async () => {
   await env?.close();
 });
 
-/** Signs in on the (English, device-language) sign-in page; the account's Spanish takes over once signed in. */
+/**
+ * Signs in on the sign-in page; the account's Spanish takes over once signed in. The page is in
+ * the device's language: English at first, Spanish after a Spanish account has signed out on it
+ * (the last account language is kept on the device), so either wording is accepted.
+ */
 async function signIn(page: Page, email: string) {
   await page.goto(`${env.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByLabel(/^(E-mail|Correo electrónico)$/).fill(email);
+  await page.getByLabel(/^(Password|Contraseña)$/).fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: /^(Sign in|Iniciar sesión)$/ }).click();
   await page.getByRole('button', { name: /^Cerrar sesión/ }).waitFor();
 }
 
