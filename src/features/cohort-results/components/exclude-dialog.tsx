@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
+import { useTranslation } from 'react-i18next';
 import { createExclusionInputSchema } from '@shared/schemas/cohort-results';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -17,6 +18,7 @@ export interface ExcludeTarget {
  * to the button that opened it.
  */
 export function ExcludeDialog({ cohortId, target, onClose }: { cohortId: string; target: ExcludeTarget | null; onClose: () => void }) {
+  const { t } = useTranslation('cohortResults');
   const ref = useRef<HTMLDialogElement>(null);
   const opener = useRef<Element | null>(null);
   const titleId = useId();
@@ -46,7 +48,7 @@ export function ExcludeDialog({ cohortId, target, onClose }: { cohortId: string;
     if (!target) return;
     const parsed = createExclusionInputSchema.safeParse({ trialId: target.trialId, reason });
     if (!parsed.success) {
-      setFieldError(parsed.error.issues.find((i) => i.path[0] === 'reason')?.message ?? 'Say why the trial is left out.');
+      setFieldError(parsed.error.issues.find((i) => i.path[0] === 'reason')?.message ?? t(($) => $.exclude.reasonMissing));
       return;
     }
     setFieldError(undefined);
@@ -72,14 +74,11 @@ export function ExcludeDialog({ cohortId, target, onClose }: { cohortId: string;
     >
       {target ? (
         <form className="space-y-4 p-5 sm:p-6" onSubmit={(e) => void submit(e)} noValidate>
-          <h2 id={titleId}>Leave out {target.label}?</h2>
-          <p className="text-ink-muted">
-            The trial stays listed, but its numbers leave every pooled estimate. Everyone in the cohort sees that it was left out and why. You can put it back
-            at any time.
-          </p>
+          <h2 id={titleId}>{t(($) => $.exclude.title, { label: target.label })}</h2>
+          <p className="text-ink-muted">{t(($) => $.exclude.body)}</p>
           <TextareaField
-            label="Reason (shown to the cohort)"
-            hint="For example: pots were swapped mid-season; the surface beds were also drip-irrigated."
+            label={t(($) => $.exclude.reason)}
+            hint={t(($) => $.exclude.reasonHint)}
             value={reason}
             onChange={(e) => setReason(e.target.value)}
             error={fieldError}
@@ -90,10 +89,10 @@ export function ExcludeDialog({ cohortId, target, onClose }: { cohortId: string;
           {serverError ? <Alert tone="error">{serverError}</Alert> : null}
           <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
             <Button variant="secondary" size="lg" className="sm:h-11 sm:text-base" onClick={onClose} disabled={create.isPending}>
-              Cancel
+              {t(($) => $.exclude.cancel)}
             </Button>
             <Button type="submit" variant="danger" size="lg" className="sm:h-11 sm:text-base" disabled={create.isPending}>
-              {create.isPending ? 'Leaving out…' : 'Leave out of the results'}
+              {create.isPending ? t(($) => $.exclude.leaving) : t(($) => $.exclude.submit)}
             </Button>
           </div>
         </form>

@@ -1,53 +1,65 @@
-import { potMakeLabels, potShapeLabels } from '@shared/schemas/pots';
-import { soilTextureLabels } from '@shared/schemas/gardens';
+import { potMakeLabels, potShapeLabels, type PotMake, type PotShape } from '@shared/schemas/pots';
+import { soilTextureLabels, type SoilTexture } from '@shared/schemas/gardens';
 import { cropLabel } from '@shared/charts/cohort-charts';
 import type { CohortResults, CohortTrialRow, EffectKey, ModeratorKey, QualityFlag } from '@shared/schemas/cohort-results';
+import { i18n } from '@/i18n';
 import { formatDate } from '@/lib/format';
 import { crT, measureLabel, num, sharedT } from './format';
 
-export const moderatorLabels: Record<ModeratorKey, string> = {
-  potCapacity: 'Pot capacity',
-  potShape: 'Pot shape',
-  clayBody: 'Clay body',
-  potMake: 'How the pots were made',
-  crop: 'Crop',
-  soilTexture: 'Soil texture',
-  setting: 'Setting',
-  mulch: 'Mulch',
-  lid: 'Pot lid',
-};
+/** A trial feature's name, in the reader's language ("Pot shape"); `lower` for inside a sentence. */
+export function moderatorLabel(moderator: ModeratorKey, lower = false): string {
+  const t = crT();
+  return lower ? t(($) => $.moderatorsLower[moderator]) : t(($) => $.moderators[moderator]);
+}
 
-const clayBodyLabels: Record<string, string> = { earthenware: 'Earthenware', terracotta: 'Terracotta', stoneware: 'Stoneware' };
-const settingLabels: Record<string, string> = { in_ground: 'In the ground', raised_bed: 'Raised bed', container: 'Container' };
-const yesNoLabels: Record<string, string> = { mulched: 'Mulched', bare: 'Bare soil', lid: 'With lid', 'no lid': 'Open, no lid' };
+/**
+ * Pot shapes and makes and soil textures already have their words in the `pots` and `gardens`
+ * namespaces; reuse them once loaded (the Subgroups section asks for both), else the English names
+ * from the shared schemas.
+ */
+function shapeLabel(level: string): string {
+  if (!(level in potShapeLabels)) return level;
+  return i18n.hasLoadedNamespace('pots') ? i18n.getFixedT(null, 'pots')(($) => $.shapes[level as PotShape]) : potShapeLabels[level as PotShape];
+}
+
+function makeLabel(level: string): string {
+  if (!(level in potMakeLabels)) return level;
+  return i18n.hasLoadedNamespace('pots') ? i18n.getFixedT(null, 'pots')(($) => $.makes[level as PotMake]) : potMakeLabels[level as PotMake];
+}
 
 /** A subgroup level in words: "mixed" means the trial itself mixed several values; "unknown" was not recorded. */
 export function levelLabel(moderator: ModeratorKey, level: string): string {
-  if (level === 'mixed') return 'Mixed within a trial';
-  if (level === 'unknown') return 'Not recorded';
+  const t = crT();
+  if (level === 'mixed') return t(($) => $.levels.mixed);
+  if (level === 'unknown') return t(($) => $.levels.unknown);
   switch (moderator) {
     case 'potCapacity':
       return level;
     case 'potShape':
-      return potShapeLabels[level as keyof typeof potShapeLabels] ?? level;
+      return shapeLabel(level);
     case 'clayBody':
-      return clayBodyLabels[level] ?? level;
+      return level === 'earthenware' || level === 'terracotta' || level === 'stoneware' ? t(($) => $.levels[level]) : level;
     case 'potMake':
-      return potMakeLabels[level as keyof typeof potMakeLabels] ?? level;
+      return makeLabel(level);
     case 'crop':
       return cropLabel(level, sharedT());
     case 'soilTexture':
-      return soilTextureLabels[level as keyof typeof soilTextureLabels] ?? level;
+      return soilLabel(level);
     case 'setting':
-      return settingLabels[level] ?? level;
+      return level === 'in_ground' || level === 'raised_bed' || level === 'container' ? t(($) => $.levels[level]) : level;
     case 'mulch':
     case 'lid':
-      return yesNoLabels[level] ?? level;
+      if (level === 'mulched' || level === 'bare' || level === 'lid') return t(($) => $.levels[level]);
+      return level === 'no lid' ? t(($) => $.levels.noLid) : level;
   }
 }
 
+/** A soil texture (USDA class) in the reader's language, from the `gardens` namespace once loaded. */
 export function soilLabel(texture: string): string {
-  return soilTextureLabels[texture as keyof typeof soilTextureLabels] ?? texture;
+  if (!(texture in soilTextureLabels)) return texture;
+  return i18n.hasLoadedNamespace('gardens')
+    ? i18n.getFixedT(null, 'gardens')(($) => $.soil[texture as SoilTexture])
+    : soilTextureLabels[texture as SoilTexture];
 }
 
 /** A quality flag as a short headline and the particulars. */
