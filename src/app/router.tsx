@@ -3,6 +3,7 @@ import type { ComponentType } from 'react';
 import { createBrowserRouter, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Role } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
+import { i18n } from '@/i18n';
 import { usersParamsFrom, usersQueryOptions } from '@/features/admin/api/get-users';
 import { healthQueryOptions } from '@/features/admin/api/get-health';
 import { outboxQueryOptions } from '@/features/admin/api/get-outbox';
@@ -33,8 +34,13 @@ import { RouteErrorPage } from './routes/route-error';
  * vite.config.ts). While one loads, the current page stays up under RootLayout's progress bar.
  */
 const lazyPage =
-  <M,>(load: () => Promise<M>, pick: (m: M) => ComponentType) =>
-  async () => ({ Component: pick(await load().catch(reloadOnceForNewBuild)) });
+  <M,>(load: () => Promise<M>, pick: (m: M) => ComponentType, namespaces: string[] = []) =>
+  async () => {
+    // The page's strings come with its code: a namespace first asked for during render would
+    // suspend the whole app (one boundary, in app.tsx) and blank the page for a moment.
+    const [m] = await Promise.all([load().catch(reloadOnceForNewBuild), i18n.loadNamespaces(namespaces)]);
+    return { Component: pick(m) };
+  };
 
 const RELOADED_FLAG = 'seepwise.chunk-reload';
 
@@ -89,49 +95,49 @@ export function createAppRouter(queryClient: QueryClient) {
           element: <RedirectIfSignedIn />,
           children: [
             { path: paths.signIn, element: <SignInPage /> },
-            { path: paths.signUp, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.SignUpPage) },
+            { path: paths.signUp, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.SignUpPage, ['auth']) },
           ],
         },
-        { path: paths.forgotPassword, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.ForgotPasswordPage) },
-        { path: paths.resetPassword, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.ResetPasswordPage) },
-        { path: paths.verifyEmail, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.VerifyEmailPage) },
-        { path: paths.unsubscribe, lazy: lazyPage(() => import('./routes/unsubscribe'), (m) => m.UnsubscribePage) },
+        { path: paths.forgotPassword, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.ForgotPasswordPage, ['auth']) },
+        { path: paths.resetPassword, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.ResetPasswordPage, ['auth']) },
+        { path: paths.verifyEmail, lazy: lazyPage(() => import('./routes/auth-pages'), (m) => m.VerifyEmailPage, ['auth']) },
+        { path: paths.unsubscribe, lazy: lazyPage(() => import('./routes/unsubscribe'), (m) => m.UnsubscribePage, ['notifications']) },
         {
           element: <ShellIfSignedIn />,
-          children: [{ path: paths.joinCohort, lazy: lazyPage(() => import('./routes/join'), (m) => m.JoinPage) }],
+          children: [{ path: paths.joinCohort, lazy: lazyPage(() => import('./routes/join'), (m) => m.JoinPage, ['cohorts', 'auth']) }],
         },
         {
           element: <RequireAuth />,
           children: [
             {
               path: paths.home,
-              lazy: lazyPage(() => import('./routes/home'), (m) => m.HomePage),
+              lazy: lazyPage(() => import('./routes/home'), (m) => m.HomePage, ['home', 'trials', 'gardens', 'cohorts', 'notifications']),
               loader: prefetch(() => [ensure(cohortsQueryOptions()), ensure(gardensQueryOptions()), ensure(trialsQueryOptions())]),
             },
-            { path: paths.newGarden, lazy: lazyPage(() => import('./routes/new-garden'), (m) => m.NewGardenPage) },
+            { path: paths.newGarden, lazy: lazyPage(() => import('./routes/new-garden'), (m) => m.NewGardenPage, ['gardens']) },
             {
               path: paths.garden(':gardenId'),
-              lazy: lazyPage(() => import('./routes/garden'), (m) => m.GardenPage),
+              lazy: lazyPage(() => import('./routes/garden'), (m) => m.GardenPage, ['gardens', 'trials', 'logs', 'charts', 'notifications']),
               loader: prefetch(({ params }) => [ensure(gardenQueryOptions(params.gardenId!)), ensure(trialsQueryOptions(params.gardenId!))]),
             },
             {
               path: paths.trial(':trialId'),
-              lazy: lazyPage(() => import('./routes/trial'), (m) => m.TrialPage),
+              lazy: lazyPage(() => import('./routes/trial'), (m) => m.TrialPage, ['trials', 'logs', 'analysis', 'charts', 'import', 'gardens', 'pots', 'round']),
               loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(plotsQueryOptions(params.trialId!)), ensure(trialAnalysisQueryOptions(params.trialId!))]),
             },
             {
               path: paths.round(':trialId'),
-              lazy: lazyPage(() => import('./routes/round'), (m) => m.RoundPage),
+              lazy: lazyPage(() => import('./routes/round'), (m) => m.RoundPage, ['round', 'trials', 'logs']),
               loader: prefetch(({ params }) => [ensure(trialQueryOptions(params.trialId!)), ensure(roundQueryOptions(params.trialId!))]),
             },
-            { path: paths.pots, lazy: lazyPage(() => import('./routes/pots'), (m) => m.PotsPage), loader: prefetch(() => [ensure(potsQueryOptions()), ensure(trialsQueryOptions())]) },
-            { path: paths.planner, lazy: lazyPage(() => import('./routes/planner'), (m) => m.PlannerPage), loader: prefetch(() => [ensure(trialsQueryOptions()), ensure(potsQueryOptions())]) },
-            { path: paths.guides, lazy: lazyPage(() => import('./routes/guides'), (m) => m.GuidesRoute) },
-            { path: paths.account, lazy: lazyPage(() => import('./routes/account'), (m) => m.AccountPage) },
-            { path: paths.cohorts, lazy: lazyPage(() => import('./routes/cohorts'), (m) => m.CohortsPage), loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
+            { path: paths.pots, lazy: lazyPage(() => import('./routes/pots'), (m) => m.PotsPage, ['pots', 'trials', 'charts']), loader: prefetch(() => [ensure(potsQueryOptions()), ensure(trialsQueryOptions())]) },
+            { path: paths.planner, lazy: lazyPage(() => import('./routes/planner'), (m) => m.PlannerPage, ['planner', 'pots', 'trials']), loader: prefetch(() => [ensure(trialsQueryOptions()), ensure(potsQueryOptions())]) },
+            { path: paths.guides, lazy: lazyPage(() => import('./routes/guides'), (m) => m.GuidesRoute, ['guides']) },
+            { path: paths.account, lazy: lazyPage(() => import('./routes/account'), (m) => m.AccountPage, ['account', 'auth', 'notifications']) },
+            { path: paths.cohorts, lazy: lazyPage(() => import('./routes/cohorts'), (m) => m.CohortsPage, ['cohorts']), loader: prefetch(() => [ensure(cohortsQueryOptions())]) },
             {
               path: paths.cohort(':cohortId'),
-              lazy: lazyPage(() => import('./routes/cohort'), (m) => m.CohortPage),
+              lazy: lazyPage(() => import('./routes/cohort'), (m) => m.CohortPage, ['cohorts', 'cohortResults', 'charts', 'pots', 'gardens', 'analysis']),
               loader: prefetch(({ params, request }) => {
                 // The pooled results start with the page but are not awaited: they may take longer than the cohort itself.
                 void queryClient.prefetchQuery(cohortResultsQueryOptions(params.cohortId!, resultsQueryFromSearch(new URL(request.url).searchParams)));
@@ -145,10 +151,10 @@ export function createAppRouter(queryClient: QueryClient) {
           children: [
             {
               path: paths.admin,
-              lazy: lazyPage(() => import('./routes/admin'), (m) => m.AdminPage),
+              lazy: lazyPage(() => import('./routes/admin'), (m) => m.AdminPage, ['admin']),
               loader: prefetch(({ request }) => [ensure(healthQueryOptions()), ensure(usersQueryOptions(usersParamsFrom(new URL(request.url).searchParams)))], ['admin']),
             },
-            { path: paths.adminOutbox, lazy: lazyPage(() => import('./routes/admin'), (m) => m.AdminOutboxPage), loader: prefetch(() => [ensure(outboxQueryOptions())], ['admin']) },
+            { path: paths.adminOutbox, lazy: lazyPage(() => import('./routes/admin'), (m) => m.AdminOutboxPage, ['admin']), loader: prefetch(() => [ensure(outboxQueryOptions())], ['admin']) },
           ],
         },
         { path: '*', element: <NotFoundPage /> },

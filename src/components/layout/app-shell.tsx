@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { Suspense, useState, type ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
 import { NavLink, useNavigate } from 'react-router-dom';
 import type { Account } from '@shared/schemas/auth';
@@ -95,7 +95,10 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
         ) : null}
       </header>
       <main id="main" className="mx-auto max-w-6xl px-4 py-6">
-        <UnitsProvider system={user.unitSystem}>{children}</UnitsProvider>
+        <UnitsProvider system={user.unitSystem}>
+          {/* A part of a page whose strings are still loading waits here, under the header, not blanking the app. */}
+          <Suspense fallback={<p role="status">{t(($) => $.loading)}</p>}>{children}</Suspense>
+        </UnitsProvider>
       </main>
     </div>
   );
