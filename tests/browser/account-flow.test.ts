@@ -36,6 +36,9 @@ describe('account flow in the browser', () => {
     await page.getByRole('heading', { name: 'Sign in' }).waitFor();
 
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
+    // The reset page loads lazily and the sign-in page, with its own "E-mail" field, stays until it
+    // has: wait for the new page, or the address goes into the old form (CI, session 2).
+    await page.getByRole('heading', { name: 'Reset your password' }).waitFor();
     await page.getByLabel('E-mail').fill(email);
     await page.getByRole('button', { name: 'Send me a reset link' }).click();
     await page.getByText(/reset link is on its way/).waitFor();
@@ -49,6 +52,7 @@ describe('account flow in the browser', () => {
     await page.getByText(/password has been changed/).waitFor();
 
     await page.getByRole('link', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
     await page.getByLabel('E-mail').fill(email);
     await page.getByLabel('Password').fill('tomato-basin-clay-42');
     await page.getByRole('button', { name: 'Sign in' }).click();

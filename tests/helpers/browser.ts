@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { serveBuiltClient } from '../../server/http/built-client';
-import { listen, startTestApp, type TestApp } from './test-app';
+import { listen, startTestApp, type SignalGate, type TestApp } from './test-app';
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 export const ARTIFACTS = path.resolve('tests/artifacts');
@@ -14,6 +14,8 @@ const builtClient = () => serveBuiltClient(path.resolve('dist'));
 export interface BrowserEnv {
   t: TestApp;
   baseUrl: string;
+  /** Drops matching requests at the server, as if the phone had no signal (see SignalGate). */
+  signal: SignalGate;
   context: BrowserContext;
   page: Page;
   /** Errors the page threw or logged; a test can assert there were none. */
@@ -72,6 +74,7 @@ export async function startBrowserEnv(opts: { viewport?: { width: number; height
   return {
     t,
     baseUrl: server.url,
+    signal: server.signal,
     context,
     page,
     pageErrors,

@@ -63,13 +63,42 @@ export async function startTestApp(overrides: Partial<AppDeps> = {}): Promise<Te
   };
 }
 
+/**
+ * Requests the server drops unanswered, as if the phone had no signal: the socket is closed before
+ * the app sees them, so nothing is stored and the browser's fetch fails the way it does on a dead
+ * connection. Browser emulation (`context.setOffline`, `context.route`) does not cover requests a
+ * service-worker-controlled page sends, so a test that must be sure nothing arrived gates here.
+ */
+export interface SignalGate {
+  /** Drop every request whose method and path match, until `restore()`. */
+  cut: (match: { method: string; path: RegExp }) => void;
+  restore: () => void;
+}
+
 /** Listens on a free loopback port (browser tests). */
-export async function listen(app: Express): Promise<{ url: string; close: () => Promise<void> }> {
-  const server = http.createServer(app);
+export async function listen(app: Express): Promise<{ url: string; signal: SignalGate; close: () => Promise<void> }> {
+  let cut: { method: string; path: RegExp } | null = null;
+  const signal: SignalGate = {
+    cut: (match) => {
+      cut = match;
+    },
+    restore: () => {
+      cut = null;
+    },
+  };
+  const server = http.createServer((req, res) => {
+    const pathname = (req.url ?? '').split('?')[0]!;
+    if (cut && req.method === cut.method && cut.path.test(pathname)) {
+      req.socket.destroy();
+      return;
+    }
+    app(req, res);
+  });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const { port } = server.address() as AddressInfo;
   return {
     url: `http://127.0.0.1:${port}`,
+    signal,
     close: () =>
       new Promise((resolve) => {
         server.closeAllConnections();
