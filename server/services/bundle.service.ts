@@ -131,7 +131,7 @@ export function bundleService(ctx: AppContext) {
         'data/trials.csv',
         ...rendered.flatMap((c) => [`charts/${c.id}.svg`, `charts/${c.id}.png`]),
       ];
-      const markdown = cohortReportMarkdown({ cohortName: cohort!.name, licence: cohort!.licence, results, generatedOn: ctx.now().toISOString().slice(0, 10), files });
+      const markdown = cohortReportMarkdown({ cohortName: cohort!.name, licence: cohort!.licence, results, generatedOn: ctx.now().toISOString().slice(0, 10), files, t });
       const { zip, finished } = startZip(res, `seepwise-cohort-${cohortId.slice(0, 8)}-report.zip`);
       zip.append(markdown, { name: 'methods-and-results.md' });
       // One row per trial with its pseudonym, effects, flags and exclusion: the table behind the forest plot.

@@ -33,6 +33,7 @@ import {
   type NotificationKind,
   type NotificationPreferences,
   type PotForecast,
+  type PotForecastNoteCode,
   type TrialForecast,
   type UnsubscribeResult,
   type UpdateNotificationPreferencesInput,
@@ -256,7 +257,14 @@ export interface PotOutlook {
   today: string;
   et0: Et0;
   note: string | null;
+  noteCode: PotForecastNoteCode | null;
 }
+
+/** English words of the forecast note codes (the API's `note`; the client words `noteCode` itself). */
+const FORECAST_NOTES: Record<PotForecastNoteCode, string> = {
+  no_refill: 'No refill logged yet: log one on the Round and the forecast starts from it.',
+  no_basis: 'No seep test, and this crop has no FAO-56 coefficients: run a seep test on the Pot shelf.',
+};
 
 /** Forecasts for pot rows; `thresholdPct` overrides each row's own (the owner's) threshold. */
 async function outlooks(ds: DataSource, rows: PotRow[], now: Date, thresholdPct?: number): Promise<PotOutlook[]> {
@@ -273,10 +281,8 @@ async function outlooks(ds: DataSource, rows: PotRow[], now: Date, thresholdPct?
       thresholdPct: thresholdPct ?? row.threshold_pct,
       now,
     });
-    let note: string | null = null;
-    if (!row.last_refill_at) note = 'No refill logged yet: log one on the Round and the forecast starts from it.';
-    else if (forecast.basis === null) note = 'No seep test, and this crop has no FAO-56 coefficients: run a seep test on the Pot shelf.';
-    return { row, forecast, today, et0, note };
+    const noteCode: PotForecastNoteCode | null = !row.last_refill_at ? 'no_refill' : forecast.basis === null ? 'no_basis' : null;
+    return { row, forecast, today, et0, note: noteCode && FORECAST_NOTES[noteCode], noteCode };
   });
 }
 
@@ -299,7 +305,7 @@ export async function trialForecast(ds: DataSource, trialId: string, userId: str
     (await gardenEt0s(ds, [{ id: garden.id, latitudeDeg: garden.latitude_deg, longitudeDeg: garden.longitude_deg, elevationM: garden.elevation_m, coastal: garden.coastal }], now)).get(garden.id)!.et0;
   const pots: PotForecast[] = list
     .sort((a, b) => urgencyOrder(a.forecast, b.forecast))
-    .map(({ row, forecast, note }) => ({
+    .map(({ row, forecast, note, noteCode }) => ({
       potId: row.pot_id,
       label: row.pot_label,
       plotId: row.plot_id,
@@ -315,6 +321,7 @@ export async function trialForecast(ds: DataSource, trialId: string, userId: str
       dryAt: forecast.dryAt,
       belowThreshold: forecast.belowThreshold,
       note,
+      noteCode,
     }));
   return { trialId, asOf: now.toISOString(), thresholdPct: refillThresholdPct, et0: { mmPerDay: et0.et0MmPerDay, source: et0.source, days: et0.days }, pots };
 }

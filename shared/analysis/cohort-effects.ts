@@ -30,8 +30,9 @@ import type {
   QualityFlag,
   SubgroupAnalysis,
   TrialEffect,
+  TrialEffectNoteCode,
 } from '../schemas/cohort-results';
-import { effectKeys, moderatorKeys } from '../schemas/cohort-results';
+import { cohortNoteCodes, effectKeys, moderatorKeys, type CohortNoteCode } from '../schemas/cohort-results';
 import { randomEffects, subgroupDifference, type RandomEffectsResult, type Tau2Method } from './meta';
 import { looksLikeWrongVolumeUnit, median, robustZScores, ROBUST_Z_OUTLIER } from './robust';
 
@@ -285,6 +286,7 @@ export interface TrialEffectEstimate {
   perPairVariance: number | null;
   source: 'pairs' | 'season-totals' | null;
   note: string | null;
+  noteCode: TrialEffectNoteCode | null;
 }
 
 /**
@@ -293,7 +295,7 @@ export interface TrialEffectEstimate {
  */
 export function trialEffect(values: readonly number[], seasonTotal: number | null): TrialEffectEstimate {
   const n = values.length;
-  if (n === 0) return { pairs: 0, estimate: null, variance: null, perPairVariance: null, source: null, note: 'No complete pair has this measurement.' };
+  if (n === 0) return { pairs: 0, estimate: null, variance: null, perPairVariance: null, source: null, note: TRIAL_EFFECT_NOTES.no_complete_pair, noteCode: 'no_complete_pair' };
   if (n === 1) {
     return {
       pairs: 1,
@@ -301,7 +303,8 @@ export function trialEffect(values: readonly number[], seasonTotal: number | nul
       variance: null,
       perPairVariance: null,
       source: seasonTotal === null ? null : 'season-totals',
-      note: 'A single pair: no within-trial variance.',
+      note: TRIAL_EFFECT_NOTES.single_pair,
+      noteCode: 'single_pair',
     };
   }
   const s2 = sampleVariance(values as number[]);
@@ -315,10 +318,11 @@ export function trialEffect(values: readonly number[], seasonTotal: number | nul
       variance: null,
       perPairVariance: 0,
       source: 'pairs',
-      note: 'Every pair gave the same value, so the variance is 0: check for copied entries.',
+      note: TRIAL_EFFECT_NOTES.same_value,
+      noteCode: 'same_value',
     };
   }
-  return { pairs: n, estimate, variance: s2 / n, perPairVariance: s2, source: 'pairs', note: null };
+  return { pairs: n, estimate, variance: s2 / n, perPairVariance: s2, source: 'pairs', note: null, noteCode: null };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -414,6 +418,7 @@ export function wrongUnitFlag(weeks: readonly WeeklyVolumeAggregate[]): QualityF
     message:
       `${hits.length} week(s) of water look like a US gallon / litre mix-up (${SERIES_LABEL[first.series]}, week of ${first.weekStart}: ` +
       `${first.litresPerEvent.toFixed(1)} L per event, ${first.ratioToMedian.toFixed(2)}× the trial's usual). Check the entries; nothing was changed.`,
+    methods: [],
     effect: null,
     robustZ: null,
     weeks: hits,
@@ -427,13 +432,14 @@ export function ownFlags(t: CohortTrialAggregate): QualityFlag[] {
     flags.push({
       kind: 'mixed-moisture-methods',
       message: `Soil moisture was read with ${t.moistureMethods.length} methods (${t.moistureMethods.join(', ')}); their scales cannot be compared or averaged.`,
+      methods: [...t.moistureMethods],
       effect: null,
       robustZ: null,
       weeks: [],
     });
   }
   if (t.status === 'closed' && t.harvestRecords === 0) {
-    flags.push({ kind: 'closed-without-harvest', message: 'The trial was closed without any harvest record.', effect: null, robustZ: null, weeks: [] });
+    flags.push({ kind: 'closed-without-harvest', message: 'The trial was closed without any harvest record.', methods: [], effect: null, robustZ: null, weeks: [] });
   }
   return flags;
 }
@@ -459,6 +465,7 @@ export function outOfLineFlags(effect: EffectKey, estimates: readonly { trialId:
         (Number.isFinite(score)
           ? `(modified z ${score.toFixed(1)}, beyond ±${ROBUST_Z_OUTLIER}).`
           : '(most trials agree exactly, so any difference stands out).'),
+      methods: [],
       effect,
       robustZ: finiteOrNull(score),
       weeks: [],
@@ -507,16 +514,16 @@ export function pool(
   effect: EffectKey,
   entries: readonly PoolEntry[],
   options: Pick<CohortOptions, 'method' | 'confidence'>,
-): { pooled: PooledEstimate | null; fit: RandomEffectsResult | null; reason: string | null } {
+): { pooled: PooledEstimate | null; fit: RandomEffectsResult | null; reason: string | null; reasonCode: 'too_few_trials' | null } {
   if (entries.length < 2) {
-    return { pooled: null, fit: null, reason: `Pooling needs at least 2 trials with this effect (have ${entries.length}).` };
+    return { pooled: null, fit: null, reason: `Pooling needs at least 2 trials with this effect (have ${entries.length}).`, reasonCode: 'too_few_trials' };
   }
   const fit = randomEffects(
     entries.map((e) => e.effect),
     entries.map((e) => e.variance),
     { method: options.method, confidence: options.confidence },
   );
-  return { pooled: presentPooled(EFFECTS[effect], fit), fit, reason: null };
+  return { pooled: presentPooled(EFFECTS[effect], fit), fit, reason: null, reasonCode: null };
 }
 
 export interface LeaveOneOutFit {
@@ -723,6 +730,7 @@ export function subgroupAnalysis(
   const tested = ordered.filter(([level]) => level !== 'unknown');
   let test: SubgroupAnalysis['test'] = null;
   let note: string | null = null;
+  let noteCode: SubgroupAnalysis['noteCode'] = null;
   const fitted = new Map<string, { estimate: number; se: number; tau2: number }>();
   if (tested.length >= 2) {
     const d = subgroupDifference(
@@ -733,14 +741,15 @@ export function subgroupAnalysis(
     // Each level's own fit (its own τ²) is the one the test used.
     d.groups.forEach((g, n) => fitted.set(tested[n]![0], g));
   } else {
-    note = entries.length === 0 ? 'No trials to compare.' : 'Fewer than 2 known levels among the pooled trials: no test between subgroups.';
+    noteCode = entries.length === 0 ? 'no_trials' : 'one_level';
+    note = noteCode === 'no_trials' ? 'No trials to compare.' : 'Fewer than 2 known levels among the pooled trials: no test between subgroups.';
   }
   const levels = ordered.map(([level, list]) => subgroupLevel(spec, level, list, options, fitted.get(level)));
   const small = levels.filter((l) => l.smallSample).map((l) => l.level);
   const warning = small.length
     ? `Fewer than ${SMALL_SUBGROUP} trials in ${small.map((s) => `"${s}"`).join(', ')}: those estimates are unstable and the test has little power.`
     : null;
-  return { moderator, levels, test, warning, note };
+  return { moderator, levels, test, warning, note, noteCode };
 }
 
 function forestRows(effect: EffectKey, entries: readonly PoolEntry[], fit: RandomEffectsResult | null, confidence: number): ForestRow[] {
@@ -776,9 +785,10 @@ export function effectResult(
 ): EffectResult {
   const spec = EFFECTS[effect];
   const main = options.excludeFlagged ? base.filter((e) => !e.flagged) : [...base];
-  const { pooled, fit, reason } = pool(effect, main, options);
+  const { pooled, fit, reason, reasonCode } = pool(effect, main, options);
   let leaveOneOutRows: EffectResult['sensitivity']['leaveOneOut'] = [];
   let leaveOneOutNote: string | null = null;
+  let leaveOneOutNoteCode: 'too_few_trials' | null = null;
   if (main.length >= 3) {
     leaveOneOutRows = fastLeaveOneOut(
       main.map((e) => e.effect),
@@ -794,6 +804,7 @@ export function effectResult(
       display: { estimate: spec.display(r.estimate), ci: displayInterval(spec, r.ci) },
     }));
   } else {
+    leaveOneOutNoteCode = 'too_few_trials';
     leaveOneOutNote = `Leave-one-out needs at least 3 pooled trials (have ${main.length}).`;
   }
   const unflagged = base.filter((e) => !e.flagged);
@@ -808,11 +819,13 @@ export function effectResult(
     k: main.length,
     pooled,
     reason,
+    reasonCode,
     forest: forestRows(effect, main, fit, options.confidence),
     subgroups: moderatorKeys.map((m) => subgroupAnalysis(effect, m, main, options)),
     sensitivity: {
       leaveOneOut: leaveOneOutRows,
       leaveOneOutNote,
+      leaveOneOutNoteCode,
       withFlagged,
       withoutFlagged,
       flaggedTrials: base.length - unflagged.length,
@@ -823,6 +836,34 @@ export function effectResult(
 
 // ---------------------------------------------------------------------------------------------
 // The whole cohort
+
+/** English text of each trial-effect note code (the API's `note`; readers get their own words from `noteCode`). */
+export const TRIAL_EFFECT_NOTES: Record<TrialEffectNoteCode, string> = {
+  no_complete_pair: 'No complete pair has this measurement.',
+  single_pair: 'A single pair: no within-trial variance.',
+  same_value: 'Every pair gave the same value, so the variance is 0: check for copied entries.',
+  single_pair_imputed: 'Single pair: season totals with the imputed variance.',
+  excluded: 'Excluded by the lead.',
+  flagged_left_out: 'Flagged: left out because excludeFlagged=true.',
+  single_pair_opt_in: 'A single pair: included only with includeSinglePairs=true.',
+  single_pair_no_donor: 'A single pair, but no multi-pair trial to impute a variance from.',
+};
+
+/** English text of the "how these results were made" notes (the API's `notes`). */
+export function cohortNoteText(code: CohortNoteCode, method: Tau2Method): string {
+  switch (code) {
+    case 'pseudonyms':
+      return 'Growers appear by their cohort pseudonym only; garden locations are rounded to whole degrees.';
+    case 'per_trial':
+      return 'Each trial contributes one effect per measure, from its own pairs: the mean of the per-pair values, with variance s²/n.';
+    case 'pooling':
+      return `Pooled by random effects (${method === 'DL' ? 'DerSimonian-Laird' : 'REML'} τ², Wald-type intervals); the prediction interval uses t on k − 2 df.`;
+    case 'flags':
+      return 'Quality flags are prompts to check entries, never corrections. Lead exclusions leave the pooled estimates but stay listed with their reason.';
+    case 'progress':
+      return 'Progress counts every shared trial the lead has not excluded, flagged or not; depth is litres over the treatments’ total plot area in those trials.';
+  }
+}
 
 export interface DescribedTrial {
   row: CohortTrialRow;
@@ -868,7 +909,7 @@ export function describeTrials(
     for (const k of effectKeys) {
       // Written out rather than spread (V8's slow path for a spread plus a key); same keys, same order.
       const e = estimates[k];
-      effects[k] = { pairs: e.pairs, estimate: e.estimate, variance: e.variance, perPairVariance: e.perPairVariance, source: e.source, note: e.note, pooled: false };
+      effects[k] = { pairs: e.pairs, estimate: e.estimate, variance: e.variance, perPairVariance: e.perPairVariance, source: e.source, note: e.note, noteCode: e.noteCode, pooled: false };
     }
     const row: CohortTrialRow = {
       trialId: t.trialId,
@@ -956,14 +997,13 @@ export function analyseCohort(input: CohortAnalysisInput): CohortResults {
       const te = d.row.effects[key];
       if (d.estimates[key].source === 'season-totals' && inBase.has(d.row.trialId)) te.variance = imputedVariance;
       te.pooled = inMain.has(d.row.trialId);
-      if (te.pooled) te.note = d.estimates[key].source === 'season-totals' ? 'Single pair: season totals with the imputed variance.' : null;
-      else if (d.excluded) te.note = 'Excluded by the lead.';
-      else if (inBase.has(d.row.trialId)) te.note = 'Flagged: left out because excludeFlagged=true.';
+      if (te.pooled) te.noteCode = d.estimates[key].source === 'season-totals' ? 'single_pair_imputed' : null;
+      else if (d.excluded) te.noteCode = 'excluded';
+      else if (inBase.has(d.row.trialId)) te.noteCode = 'flagged_left_out';
       else if (d.estimates[key].pairs === 1 && d.estimates[key].estimate !== null) {
-        te.note = !options.includeSinglePairs
-          ? 'A single pair: included only with includeSinglePairs=true.'
-          : 'A single pair, but no multi-pair trial to impute a variance from.';
+        te.noteCode = !options.includeSinglePairs ? 'single_pair_opt_in' : 'single_pair_no_donor';
       }
+      te.note = te.noteCode === null ? null : TRIAL_EFFECT_NOTES[te.noteCode];
     }
   }
 
@@ -994,15 +1034,8 @@ export function analyseCohort(input: CohortAnalysisInput): CohortResults {
     exclusions,
     effects,
     progress: progressRows(input.progress, area),
-    notes: [
-      'Growers appear by their cohort pseudonym only; garden locations are rounded to whole degrees.',
-      'Each trial contributes one effect per measure, from its own pairs: the mean of the per-pair values, with variance s²/n.',
-      'Pooled by random effects (' +
-        (options.method === 'DL' ? 'DerSimonian-Laird' : 'REML') +
-        ' τ², Wald-type intervals); the prediction interval uses t on k − 2 df.',
-      'Quality flags are prompts to check entries, never corrections. Lead exclusions leave the pooled estimates but stay listed with their reason.',
-      'Progress counts every shared trial the lead has not excluded, flagged or not; depth is litres over the treatments’ total plot area in those trials.',
-    ],
+    notes: cohortNoteCodes.map((code) => cohortNoteText(code, options.method)),
+    noteCodes: [...cohortNoteCodes],
   };
 }
 

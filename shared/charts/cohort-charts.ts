@@ -32,13 +32,24 @@ export function cropLabel(crop: string, t: Translate = enT): string {
 }
 
 /**
+ * A member's cohort pseudonym as a reader sees it: the stored "Grower K7" (stable, the same in every
+ * CSV) reads "Cultivador K7" in Spanish. Anything not of the form "Grower <tag>" / "Observer <tag>"
+ * is shown as stored.
+ */
+export function pseudonymLabel(pseudonym: string, t: Translate = enT): string {
+  const m = /^(Grower|Observer) (\S+)$/.exec(pseudonym);
+  if (!m) return pseudonym;
+  return m[1] === 'Grower' ? t('charts.pseudonym.grower', { tag: m[2]! }) : t('charts.pseudonym.observer', { tag: m[2]! });
+}
+
+/**
  * "Grower K7 · Tomato" for each trial; a grower's second trial of the same crop becomes
  * "Grower K7 · Tomato (2)", in the order the results list them (planting date).
  */
 export function trialLabels(results: Pick<CohortResults, 'trials'>, tr: Translate = enT): Record<string, string> {
   const seen = new Map<string, number>();
   const counts = new Map<string, number>();
-  const base = (t: CohortResults['trials'][number]) => `${t.pseudonym} · ${cropLabel(t.crop, tr)}`;
+  const base = (t: CohortResults['trials'][number]) => `${pseudonymLabel(t.pseudonym, tr)} · ${cropLabel(t.crop, tr)}`;
   for (const t of results.trials) counts.set(base(t), (counts.get(base(t)) ?? 0) + 1);
   const out: Record<string, string> = {};
   for (const t of results.trials) {

@@ -58,6 +58,19 @@ export function treatmentLegendLabels(t: Translate = enT): { labelExpr: string }
   return { labelExpr: expr };
 }
 
+/**
+ * A date axis with an explicit day format in the reader's language ("May 17" / "17 may"): Vega's own
+ * multi-scale format puts the month first in every language.
+ */
+export function dayAxis(t: Translate): { format: string; labelOverlap: boolean } {
+  return { format: t('charts.timeFormat.day'), labelOverlap: true };
+}
+
+/** A soil-moisture method code ("probe_index") as a reader names it; an unknown code stays as is. */
+export function moistureMethodLabel(method: string, t: Translate = enT): string {
+  return method === 'vwc' || method === 'tensiometer' || method === 'probe_index' ? t(`charts.moistureMethods.${method}`) : method;
+}
+
 function base(o: ChartOptions, height: number): Spec {
   return { $schema: SCHEMA, width: o.width, height, config: chartConfig };
 }
@@ -70,11 +83,11 @@ export function cumulativeWaterSpec(a: TrialAnalysis, treatments: string[], o: C
     data: { values: a.cumulative.flatMap((s) => s.points.map(([day, litres]) => ({ plot: s.label, treatment: s.treatment ?? 'unassigned', day, value: toDisplay(litres, 'volume', o.units) }))) },
     mark: { type: 'line', interpolate: 'step-after' },
     encoding: {
-      x: { field: 'day', type: 'temporal', title: t('charts.trial.date') },
+      x: { field: 'day', type: 'temporal', title: t('charts.trial.date'), axis: dayAxis(t) },
       y: { field: 'value', type: 'quantitative', title: t('charts.trial.waterSoFar', { unit: vol }) },
       color: { field: 'treatment', type: 'nominal', title: t('charts.trial.treatment'), scale: treatmentScale(treatments), legend: treatmentLegendLabels(t) },
       detail: { field: 'plot' },
-      tooltip: [{ field: 'plot', title: t('charts.trial.plot') }, { field: 'day', type: 'temporal', title: t('charts.trial.date') }, { field: 'value', format: '.1f', title: vol }],
+      tooltip: [{ field: 'plot', title: t('charts.trial.plot') }, { field: 'day', type: 'temporal', title: t('charts.trial.date'), format: t('charts.timeFormat.dayYear') }, { field: 'value', format: '.1f', title: vol }],
     },
   };
 }
@@ -173,7 +186,7 @@ export function weeklyNeedSpec(a: TrialAnalysis, treatments: string[], o: ChartO
     data: { values },
     mark: { type: 'line', point: true },
     encoding: {
-      x: { field: 'week', type: 'temporal', title: t('charts.trial.weekStarting') },
+      x: { field: 'week', type: 'temporal', title: t('charts.trial.weekStarting'), axis: dayAxis(t) },
       y: { field: 'value', type: 'quantitative', title: t('charts.trial.perWeek', { unit }) },
       color: { field: 'series', type: 'nominal', title: null, scale: { domain: [...treatments.map(applied), need], range: [...colour.range, '#b5562f'] } },
       strokeDash: { field: 'series', type: 'nominal', legend: null },
@@ -187,7 +200,8 @@ export function moistureSpec(a: TrialAnalysis, treatments: string[], o: ChartOpt
   return {
     $schema: SCHEMA,
     config: chartConfig,
-    data: { values: a.moisture.series },
+    // The facet shows each method's name in the reader's language, not its code.
+    data: { values: a.moisture.series.map((m) => ({ ...m, method: moistureMethodLabel(m.method, t) })) },
     facet: { row: { field: 'method', type: 'nominal', title: t('charts.trial.moistureMethod') } },
     resolve: { scale: { y: 'independent' } },
     spec: {
@@ -195,7 +209,7 @@ export function moistureSpec(a: TrialAnalysis, treatments: string[], o: ChartOpt
       height: 140,
       mark: { type: 'line', point: true },
       encoding: {
-        x: { field: 'day', type: 'temporal', title: t('charts.trial.date') },
+        x: { field: 'day', type: 'temporal', title: t('charts.trial.date'), axis: dayAxis(t) },
         y: { field: 'value', type: 'quantitative', title: t('charts.trial.dailyMean') },
         color: { field: 'treatment', type: 'nominal', title: t('charts.trial.treatment'), scale: treatmentScale(treatments), legend: treatmentLegendLabels(t) },
       },

@@ -26,34 +26,69 @@ export interface VegaTimeLocale {
   shortMonths: string[];
 }
 
-const en = {
-  number: { decimal: '.', thousands: ',', grouping: [3], currency: ['$', ''] },
-  time: {
+/** What differs between languages; everything else of a Vega locale is derived in one place (vegaLocaleOf). */
+interface LocaleWords {
+  decimal: string;
+  thousands: string;
+  currency: [string, string];
+  dateTime: string;
+  date: string;
+  time: string;
+  periods: [string, string];
+  /** Sunday first, as d3-time-format expects. */
+  days: string[];
+  /** January first. */
+  months: string[];
+}
+
+/** A Vega number + time locale from a language's words; short day and month names are the first three letters. */
+function vegaLocaleOf(w: LocaleWords): { number: VegaNumberLocale; time: VegaTimeLocale } {
+  const short = (names: string[]) => names.map((n) => n.slice(0, 3));
+  return {
+    number: { decimal: w.decimal, thousands: w.thousands, grouping: [3], currency: w.currency },
+    time: {
+      dateTime: w.dateTime,
+      date: w.date,
+      time: w.time,
+      periods: w.periods,
+      days: w.days,
+      shortDays: short(w.days),
+      months: w.months,
+      shortMonths: short(w.months),
+    },
+  };
+}
+
+const locales: Record<Lang, { number: VegaNumberLocale; time: VegaTimeLocale }> = {
+  en: vegaLocaleOf({
+    decimal: '.',
+    thousands: ',',
+    currency: ['$', ''],
     dateTime: '%x, %X',
     date: '%-m/%-d/%Y',
     time: '%-I:%M:%S %p',
     periods: ['AM', 'PM'],
     days: ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'],
-    shortDays: ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'],
     months: ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'],
-    shortMonths: ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'],
-  },
-} satisfies { number: VegaNumberLocale; time: VegaTimeLocale };
-
-const es = {
-  number: { decimal: ',', thousands: '.', grouping: [3], currency: ['', '\u00a0€'] },
-  time: {
+  }),
+  es: vegaLocaleOf({
+    decimal: ',',
+    thousands: '.',
+    currency: ['', '\u00a0€'],
     dateTime: '%A, %e de %B de %Y, %X',
     date: '%d/%m/%Y',
     time: '%H:%M:%S',
     periods: ['AM', 'PM'],
     days: ['domingo', 'lunes', 'martes', 'miércoles', 'jueves', 'viernes', 'sábado'],
-    shortDays: ['dom', 'lun', 'mar', 'mié', 'jue', 'vie', 'sáb'],
     months: ['enero', 'febrero', 'marzo', 'abril', 'mayo', 'junio', 'julio', 'agosto', 'septiembre', 'octubre', 'noviembre', 'diciembre'],
-    shortMonths: ['ene', 'feb', 'mar', 'abr', 'may', 'jun', 'jul', 'ago', 'sep', 'oct', 'nov', 'dic'],
-  },
-} satisfies { number: VegaNumberLocale; time: VegaTimeLocale };
+  }),
+};
 
+/**
+ * The Vega locale of a language. Axis ticks of dates still need an explicit format for the day-month
+ * order (Vega's multi-scale default is month first): see dayAxis in trial-charts.ts and the
+ * `charts.timeFormat` strings.
+ */
 export function vegaLocale(lang: Lang): { number: VegaNumberLocale; time: VegaTimeLocale } {
-  return (lang === 'es' ? es : en) as { number: VegaNumberLocale; time: VegaTimeLocale };
+  return locales[lang];
 }

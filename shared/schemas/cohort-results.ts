@@ -40,9 +40,32 @@ export type ModeratorKey = z.infer<typeof moderatorKeySchema>;
 
 const interval = z.tuple([z.number(), z.number()]);
 
+/**
+ * Stable codes for the sentences the analysis makes, so a reader sees them in their own language
+ * (the client words them in `cohortResults`, the report bundle in shared/locales/<lang>/report.json).
+ * The English text fields beside them stay for API consumers.
+ */
+export const trialEffectNoteCodes = [
+  'no_complete_pair',
+  'single_pair',
+  'same_value',
+  'single_pair_imputed',
+  'excluded',
+  'flagged_left_out',
+  'single_pair_opt_in',
+  'single_pair_no_donor',
+] as const;
+export type TrialEffectNoteCode = (typeof trialEffectNoteCodes)[number];
+export const subgroupNoteCodes = ['no_trials', 'one_level'] as const;
+export const cohortNoteCodes = ['pseudonyms', 'per_trial', 'pooling', 'flags', 'progress'] as const;
+export type CohortNoteCode = (typeof cohortNoteCodes)[number];
+
 export const qualityFlagSchema = z.object({
   kind: z.enum(['out-of-line', 'wrong-unit', 'mixed-moisture-methods', 'closed-without-harvest']),
+  /** English sentence for API consumers; readers get their own words from the fields below. */
   message: z.string(),
+  /** mixed-moisture-methods: the soil-moisture method codes logged (empty otherwise). */
+  methods: z.array(z.string()),
   /** out-of-line: which effect, and the modified z-score (null when the cohort's MAD is 0, i.e. infinite). */
   effect: effectKeySchema.nullable(),
   robustZ: z.number().nullable(),
@@ -72,8 +95,10 @@ export const trialEffectSchema = z.object({
   source: z.enum(['pairs', 'season-totals']).nullable(),
   /** True when the trial is in this effect's main pooled estimate. */
   pooled: z.boolean(),
-  /** Why it is not pooled, when it is not. */
+  /** Why it is not pooled, when it is not (English, for API consumers). */
   note: z.string().nullable(),
+  /** The same note as a stable code. */
+  noteCode: z.enum(trialEffectNoteCodes).nullable(),
 });
 export type TrialEffect = z.infer<typeof trialEffectSchema>;
 
@@ -178,6 +203,8 @@ export const subgroupAnalysisSchema = z.object({
   test: z.object({ q: z.number(), df: z.number(), pValue: z.number().nullable(), levels: z.array(z.string()) }).nullable(),
   warning: z.string().nullable(),
   note: z.string().nullable(),
+  /** `note` as a stable code: no trials at all, or fewer than 2 known levels. */
+  noteCode: z.enum(subgroupNoteCodes).nullable(),
 });
 export type SubgroupAnalysis = z.infer<typeof subgroupAnalysisSchema>;
 
@@ -199,13 +226,17 @@ export const effectResultSchema = z.object({
   displayLabel: z.string(),
   k: z.number(),
   pooled: pooledEstimateSchema.nullable(),
-  /** Why there is no pooled estimate. */
+  /** Why there is no pooled estimate (English, for API consumers). */
   reason: z.string().nullable(),
+  /** The same as a stable code: fewer than 2 trials carry the effect (`k` says how many). */
+  reasonCode: z.enum(['too_few_trials']).nullable(),
   forest: z.array(forestRowSchema),
   subgroups: z.array(subgroupAnalysisSchema),
   sensitivity: z.object({
     leaveOneOut: z.array(leaveOneOutRowSchema),
     leaveOneOutNote: z.string().nullable(),
+    /** `leaveOneOutNote` as a stable code (needs k ≥ 3). */
+    leaveOneOutNoteCode: z.enum(['too_few_trials']).nullable(),
     /** Every eligible, non-excluded trial, flagged or not. */
     withFlagged: pooledEstimateSchema.nullable(),
     withoutFlagged: pooledEstimateSchema.nullable(),
@@ -243,6 +274,8 @@ export const cohortResultsSchema = z.object({
   exclusions: z.array(exclusionSchema),
   effects: z.object({ waterLogRatio: effectResultSchema, wueLogRatio: effectResultSchema, harvestPerPlantDiff: effectResultSchema }),
   progress: z.array(progressRowSchema),
+  /** How the results were made, in English (API consumers); `noteCodes` are the same notes as codes, in order. */
   notes: z.array(z.string()),
+  noteCodes: z.array(z.enum(cohortNoteCodes)),
 });
 export type CohortResults = z.infer<typeof cohortResultsSchema>;

@@ -44,6 +44,10 @@ export type UnsubscribeInput = z.infer<typeof unsubscribeInputSchema>;
 export const unsubscribeResultSchema = z.object({ kind: notificationKindSchema, message: z.string() });
 export type UnsubscribeResult = z.infer<typeof unsubscribeResultSchema>;
 
+/** Codes of PotForecast.note. */
+export const potForecastNoteCodes = ['no_refill', 'no_basis'] as const;
+export type PotForecastNoteCode = (typeof potForecastNoteCodes)[number];
+
 export const potForecastSchema = z.object({
   potId: z.uuid(),
   label: z.string(),
@@ -60,8 +64,10 @@ export const potForecastSchema = z.object({
   thresholdAt: z.string().nullable(),
   dryAt: z.string().nullable(),
   belowThreshold: z.boolean(),
-  /** Why the level is unknown, when it is. */
+  /** Why the level is unknown, when it is (English, for API consumers). */
   note: z.string().nullable(),
+  /** The same as a stable code, worded by the client: no refill logged yet, or nothing to estimate the draw from. */
+  noteCode: z.enum(potForecastNoteCodes).nullable(),
 });
 export type PotForecast = z.infer<typeof potForecastSchema>;
 

@@ -2,13 +2,14 @@ import { useState, type ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
+import { cohortNotes } from '@shared/analysis/cohort-words';
 import { useCohortResults } from '../api/get-cohort-results';
 import { useDeleteExclusion } from '../api/delete-exclusion';
 import { useResultsOptions } from '../hooks/use-results-options';
 import { ExcludeDialog, type ExcludeTarget } from './exclude-dialog';
 import { ExportLinks } from './export-links';
 import { ForestPlot } from './forest-plot';
-import { measureLabel } from './format';
+import { measureLabel, sharedT } from './format';
 import { Headline } from './headline';
 import { ProgressChart } from './progress-chart';
 import { ResultsOptions } from './results-options';
@@ -148,7 +149,7 @@ export function CohortResultsSection({ cohortId, canExclude }: { cohortId: strin
         <details className="rounded-card border border-sand-200 bg-white p-4 text-sm">
           <summary className="cursor-pointer font-medium text-terracotta-700">{t(($) => $.howMade)}</summary>
           <ul className="mt-2 list-disc space-y-1 pl-5 text-ink-muted">
-            {r.notes.map((n) => (
+            {cohortNotes(r, sharedT()).map((n) => (
               <li key={n}>{n}</li>
             ))}
             <li>{t(($) => $.howMadeNotes.singlePairs)}</li>

@@ -1,6 +1,7 @@
 import { useTranslation } from 'react-i18next';
 import type { VisualizationSpec } from 'vega-embed';
 import { effectAxis, forestPlotSpec, forestTitle, trialLabels } from '@shared/charts/cohort-charts';
+import { noPooledReason } from '@shared/analysis/cohort-words';
 import type { CohortResults, EffectKey, PooledEstimate } from '@shared/schemas/cohort-results';
 import { Chart } from '@/components/charts/chart';
 import { useUnits } from '@/lib/units';
@@ -86,7 +87,7 @@ export function ForestPlot({ results, effect }: { results: CohortResults; effect
     ? p.display.predictionInterval
       ? t(($) => $.forest.takeawayPi, { confidence: conf, estimate: v(p.display.estimate), ci: iv(p.display.ci), pi: iv(p.display.predictionInterval) })
       : t(($) => $.forest.takeaway, { confidence: conf, estimate: v(p.display.estimate), ci: iv(p.display.ci) })
-    : `${t(($) => $.forest.takeawayNone, { confidence: conf })} ${e.reason ?? ''}`;
+    : `${t(($) => $.forest.takeawayNone, { confidence: conf })} ${noPooledReason(e, st) ?? ''}`;
   // The same order as the chart: largest effect first.
   const forestRows = [...e.forest].sort((a, b) => b.display.estimate - a.display.estimate);
 
@@ -168,7 +169,7 @@ export function ForestPlot({ results, effect }: { results: CohortResults; effect
           </table>
         }
       />
-      {p ? <Heterogeneity p={p} effect={effect} unit={axis.unit} convert={axis.convert} /> : <p className="text-ink-muted">{e.reason}</p>}
+      {p ? <Heterogeneity p={p} effect={effect} unit={axis.unit} convert={axis.convert} /> : <p className="text-ink-muted">{noPooledReason(e, st)}</p>}
     </div>
   );
 }

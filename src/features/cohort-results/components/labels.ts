@@ -1,6 +1,9 @@
 import { potMakeLabels, potShapeLabels, type PotMake, type PotShape } from '@shared/schemas/pots';
 import { soilTextureLabels, type SoilTexture } from '@shared/schemas/gardens';
 import { cropLabel } from '@shared/charts/cohort-charts';
+import { moistureMethodLabel } from '@shared/charts/trial-charts';
+import { potCapacityLevelLabel } from '@shared/analysis/cohort-words';
+import type { UnitSystem } from '@shared/units';
 import type { CohortResults, CohortTrialRow, EffectKey, ModeratorKey, QualityFlag } from '@shared/schemas/cohort-results';
 import { i18n } from '@/i18n';
 import { formatDate } from '@/lib/format';
@@ -28,13 +31,13 @@ function makeLabel(level: string): string {
 }
 
 /** A subgroup level in words: "mixed" means the trial itself mixed several values; "unknown" was not recorded. */
-export function levelLabel(moderator: ModeratorKey, level: string): string {
+export function levelLabel(moderator: ModeratorKey, level: string, units: UnitSystem = 'metric'): string {
   const t = crT();
   if (level === 'mixed') return t(($) => $.levels.mixed);
   if (level === 'unknown') return t(($) => $.levels.unknown);
   switch (moderator) {
     case 'potCapacity':
-      return level;
+      return potCapacityLevelLabel(level, sharedT(), units);
     case 'potShape':
       return shapeLabel(level);
     case 'clayBody':
@@ -81,10 +84,8 @@ export function flagWords(f: QualityFlag): { title: string; details: string[] } 
         ),
       };
     case 'mixed-moisture-methods': {
-      // The server's message names the methods ("… with 2 methods (vwc, tensiometer); …"); read them back for the reader's language.
-      const methods = /\(([^)]*)\)/.exec(f.message)?.[1];
-      const count = methods ? methods.split(', ').length : 0;
-      return { title: t(($) => $.flags.mixedMoisture), details: [methods ? t(($) => $.flags.mixedMoistureDetail, { count, methods }) : f.message] };
+      const methods = f.methods.map((m) => moistureMethodLabel(m, sharedT())).join(', ');
+      return { title: t(($) => $.flags.mixedMoisture), details: [t(($) => $.flags.mixedMoistureDetail, { count: f.methods.length, methods })] };
     }
     case 'closed-without-harvest':
       return { title: t(($) => $.flags.closed), details: [t(($) => $.flags.closedDetail)] };

@@ -2,7 +2,7 @@ import { effectAxis, trialLabels } from '@shared/charts/cohort-charts';
 import type { CohortResults, EffectKey, PooledEstimate } from '@shared/schemas/cohort-results';
 import { useTranslation } from 'react-i18next';
 import { useUnits } from '@/lib/units';
-import { measureLabel, num, trials } from './format';
+import { measureLabel, num, sharedT, trials } from './format';
 
 function PooledBox({
   label,
@@ -43,7 +43,7 @@ export function Sensitivity({ results, effect }: { results: CohortResults; effec
   const units = useUnits();
   const e = results.effects[effect];
   const axis = effectAxis(effect, { units: units.system });
-  const labels = trialLabels(results);
+  const labels = trialLabels(results, sharedT());
   const digits = axis.unit === '%' ? 0 : 2;
   const unit = axis.unit === '%' ? '%' : axis.unit;
   const points = axis.unit === '%';

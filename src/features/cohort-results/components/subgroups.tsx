@@ -83,7 +83,7 @@ export function Subgroups({ results, effect }: { results: CohortResults; effect:
           <p className="text-ink-muted">
             {t(($) => $.subgroups.untested, {
               count: untested.length,
-              features: listWords(untested.map((u) => `${moderatorLabel(u.moderator, true)} (${u.levels.map((l) => levelLabel(u.moderator, l.level)).join(', ')})`)),
+              features: listWords(untested.map((u) => `${moderatorLabel(u.moderator, true)} (${u.levels.map((l) => levelLabel(u.moderator, l.level, units.system)).join(', ')})`)),
             })}
           </p>
         ) : null}
@@ -166,7 +166,7 @@ export function Subgroups({ results, effect }: { results: CohortResults; effect:
                     {s.levels.map((l) => (
                       <tr key={l.level} className="border-t border-sand-100">
                         <th scope="row" className="py-1.5 pr-3 text-left font-normal">
-                          {levelLabel(s.moderator, l.level)}
+                          {levelLabel(s.moderator, l.level, units.system)}
                           {l.smallSample ? (
                             <span className="ml-1 text-amber-900" title={t(($) => $.subgroups.fewerThan3)}>
                               ⚠<span className="sr-only">{t(($) => $.subgroups.fewerThan3Sr)}</span>

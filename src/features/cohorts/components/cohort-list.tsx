@@ -2,6 +2,7 @@ import { useTranslation } from 'react-i18next';
 import { Link } from 'react-router-dom';
 import type { CohortSummary } from '@shared/schemas/cohorts';
 import { paths } from '@/config/paths';
+import { shownPseudonym } from '@/lib/pseudonym';
 import { ClosedBadge, RoleBadge } from './role-badge';
 
 /** How the caller appears in a cohort, in one short line. */
@@ -9,7 +10,7 @@ export function useMyPlaceText() {
   const { t } = useTranslation('cohorts');
   return (c: CohortSummary): string => {
     if (c.myRole === 'lead') return t(($) => $.place.lead);
-    return c.myPseudonym ? t(($) => $.place.pseudonym, { pseudonym: c.myPseudonym }) : t(($) => $.place.member);
+    return c.myPseudonym ? t(($) => $.place.pseudonym, { pseudonym: shownPseudonym(c.myPseudonym) }) : t(($) => $.place.member);
   };
 }
 

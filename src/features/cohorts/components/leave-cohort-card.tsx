@@ -2,6 +2,7 @@ import { useTranslation } from 'react-i18next';
 import type { CohortSummary } from '@shared/schemas/cohorts';
 import { Card } from '@/components/ui/card';
 import { ConfirmAction } from '@/components/ui/confirm-dialog';
+import { shownPseudonym } from '@/lib/pseudonym';
 import { useLeaveCohort } from '../api/leave-cohort';
 
 /** A member leaves a cohort (after confirming); the lead cannot leave their own. */
@@ -23,7 +24,7 @@ export function LeaveCohortCard({ cohort, onLeft }: { cohort: CohortSummary; onL
           onLeft();
         }}
       >
-        <p>{cohort.myPseudonym ? t(($) => $.leave.confirmBodyPseudonym, { pseudonym: cohort.myPseudonym }) : t(($) => $.leave.confirmBody)}</p>
+        <p>{cohort.myPseudonym ? t(($) => $.leave.confirmBodyPseudonym, { pseudonym: shownPseudonym(cohort.myPseudonym) }) : t(($) => $.leave.confirmBody)}</p>
         <p>{t(($) => $.leave.confirmBody2)}</p>
       </ConfirmAction>
     </Card>

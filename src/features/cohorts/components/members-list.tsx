@@ -2,6 +2,7 @@ import { useTranslation } from 'react-i18next';
 import { Alert } from '@/components/ui/alert';
 import { ConfirmAction } from '@/components/ui/confirm-dialog';
 import { formatDate } from '@/lib/format';
+import { shownPseudonym } from '@/lib/pseudonym';
 import { useCohortMembers } from '../api/get-cohort-members';
 import { useRemoveMember } from '../api/remove-member';
 
@@ -31,7 +32,7 @@ export function MembersList({ cohortId, canRemove }: { cohortId: string; canRemo
           <li key={m.id} className="flex flex-wrap items-center gap-x-4 gap-y-2 px-3 py-3">
             <div className="min-w-0 flex-1">
               <p className="font-medium">
-                {m.pseudonym}
+                {shownPseudonym(m.pseudonym)}
                 {m.isMe ? <span className="ml-2 rounded bg-terracotta-50 px-1.5 py-0.5 text-xs font-medium text-terracotta-800">{tc(($) => $.you)}</span> : null}
               </p>
               <p className="text-sm text-ink-muted">
@@ -41,14 +42,14 @@ export function MembersList({ cohortId, canRemove }: { cohortId: string; canRemo
             {canRemove ? (
               <ConfirmAction
                 label={t(($) => $.members.remove)}
-                ariaLabel={t(($) => $.members.removeLabel, { name: m.pseudonym })}
+                ariaLabel={t(($) => $.members.removeLabel, { name: shownPseudonym(m.pseudonym) })}
                 buttonProps={{ size: 'md', className: 'min-w-24' }}
-                title={t(($) => $.members.removeTitle, { name: m.pseudonym })}
+                title={t(($) => $.members.removeTitle, { name: shownPseudonym(m.pseudonym) })}
                 confirmLabel={t(($) => $.members.removeConfirm)}
                 tone="danger"
                 onConfirm={() => remove.mutateAsync(m.id)}
               >
-                <p>{m.role === 'contributor' ? t(($) => $.members.removeBodyContributor, { name: m.pseudonym }) : t(($) => $.members.removeBody, { name: m.pseudonym })}</p>
+                <p>{m.role === 'contributor' ? t(($) => $.members.removeBodyContributor, { name: shownPseudonym(m.pseudonym) }) : t(($) => $.members.removeBody, { name: shownPseudonym(m.pseudonym) })}</p>
                 <p>{t(($) => $.members.removeBody2)}</p>
               </ConfirmAction>
             ) : null}

@@ -4,12 +4,8 @@ import { formatDateTime, formatNumber } from '@/lib/format';
 import { useUnits } from '@/lib/units';
 import { useTrialForecast } from '../api/get-trial-forecast';
 
-/** The server's notes (server/services/reminders.service.ts), by their English words; another note shows as sent. */
-const NOTES = {
-  'No refill logged yet: log one on the Round and the forecast starts from it.': 'noRefill',
-  'No seep test, and this crop has no FAO-56 coefficients: run a seep test on the Pot shelf.': 'noBasis',
-} as const;
-const isKnownNote = (n: string): n is keyof typeof NOTES => Object.hasOwn(NOTES, n);
+/** The server's note codes (server/services/reminders.service.ts) and their keys under `forecast.notes`. */
+const NOTES = { no_refill: 'noRefill', no_basis: 'noBasis' } as const;
 
 /** A trial's pots, most urgent first: level, litres left, when each runs dry and what the estimate rests on. */
 export function RefillForecastTable({ trialId }: { trialId: string }) {
@@ -43,7 +39,7 @@ export function RefillForecastTable({ trialId }: { trialId: string }) {
               <tr key={p.potId} className="border-b border-sand-100 align-top">
                 <th scope="row" className="py-2 pr-3 text-left font-medium">
                   {p.label} <span className="font-normal text-ink-muted">({p.plotLabel})</span>
-                  {p.note ? <span className="block text-xs font-normal text-ink-muted">{isKnownNote(p.note) ? t(($) => $.forecast.notes[NOTES[p.note as keyof typeof NOTES]]) : p.note}</span> : null}
+                  {p.noteCode ? <span className="block text-xs font-normal text-ink-muted">{t(($) => $.forecast.notes[NOTES[p.noteCode!]])}</span> : null}
                 </th>
                 <td className={`py-2 pr-3 text-right ${p.belowThreshold ? 'font-semibold text-terracotta-700' : ''}`}>{p.levelPct === null ? '—' : `${formatNumber(p.levelPct, 0)} %`}</td>
                 <td className="py-2 pr-3 text-right">{units.fmt(p.levelL, 'volume')}</td>
