@@ -1,10 +1,44 @@
 import { useTranslation } from 'react-i18next';
-import { formatDateTime } from '@/lib/format';
+import type { TFunction } from 'i18next';
+import enTrials from '@/locales/en/trials.json';
+import { formatDate, formatDateTime, formatNumber } from '@/lib/format';
 import { useAudit } from '../api/get-audit';
 
-function describe(changes: Record<string, unknown>): string {
+type Field = keyof typeof enTrials.audit.fields;
+const isField = (k: string): k is Field => Object.hasOwn(enTrials.audit.fields, k);
+const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/;
+const ISO_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
+
+/** One recorded value in the reader's language: dates and numbers formatted, yes/no, known codes translated. */
+function valueText(t: TFunction<'trials'>, key: string, v: unknown): string {
+  if (v === null || v === undefined || v === '') return t(($) => $.audit.empty);
+  if (typeof v === 'boolean') return v ? t(($) => $.audit.yes) : t(($) => $.audit.no);
+  if (typeof v === 'number') return formatNumber(v, 3);
+  if (Array.isArray(v)) return v.map((x) => valueText(t, key, x)).join(', ');
+  if (typeof v === 'string') {
+    if (key === 'status' && (v === 'draft' || v === 'active' || v === 'closed')) return t(($) => $.status[v]);
+    if ((key === 'treatment' || key === 'treatments') && (v === 'olla' || v === 'surface')) return t(($) => $.treatments[v]);
+    if (ISO_TIME.test(v)) return formatDateTime(v);
+    if (ISO_DAY.test(v)) return formatDate(v);
+    return `“${v}”`;
+  }
+  return JSON.stringify(v);
+}
+
+/** A field's name in the reader's language; an unknown one ("someField") split into words. */
+function fieldText(t: TFunction<'trials'>, key: string): string {
+  return isField(key) ? t(($) => $.audit.fields[key]) : key.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/_/g, ' ').toLowerCase();
+}
+
+/** Updates and status changes record { field: [before, after] }; creations and deletions the record itself. */
+function describe(t: TFunction<'trials'>, action: string, changes: Record<string, unknown>): string {
+  const pairs = action === 'update' || action === 'status';
   return Object.entries(changes)
-    .map(([k, v]) => (Array.isArray(v) && v.length === 2 ? `${k}: ${JSON.stringify(v[0])} → ${JSON.stringify(v[1])}` : `${k}: ${JSON.stringify(v)}`))
+    .map(([k, v]) =>
+      pairs && Array.isArray(v) && v.length === 2
+        ? t(($) => $.audit.change, { field: fieldText(t, k), before: valueText(t, k, v[0]), after: valueText(t, k, v[1]) })
+        : t(($) => $.audit.value, { field: fieldText(t, k), value: valueText(t, k, v) }),
+    )
     .join('; ');
 }
 
@@ -35,7 +69,7 @@ export function AuditList({ trialId }: { trialId: string }) {
           {rows.map((r) => (
             <li key={r.id} className="rounded-lg border border-sand-200 bg-white px-3 py-2 text-sm">
               <span className="font-medium">{formatDateTime(r.at)}</span> · {r.actor ?? t(($) => $.audit.someone)} · {actionText(r.action)} {entityText(r.entityType)}
-              <p className="break-words text-ink-muted">{describe(r.changes)}</p>
+              <p className="break-words text-ink-muted">{describe(t, r.action, r.changes)}</p>
             </li>
           ))}
         </ol>
