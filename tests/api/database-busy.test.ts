@@ -5,7 +5,6 @@
  * that says something broke. Once a connection is free again the same request succeeds.
  */
 import type pg from 'pg';
-import type { PostgresDriver } from 'typeorm/driver/postgres/PostgresDriver';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ApiAgent, startTestApp, uniqueEmail, type TestApp } from '../helpers/test-app';
 
@@ -25,7 +24,8 @@ describe('a busy database', () => {
     expect(created.status).toBe(201);
 
     // Take every connection of the app's pool (startTestApp: poolSize 5).
-    const pool = (t.ds.driver as PostgresDriver).master as pg.Pool;
+    // TypeORM's postgres driver keeps its pg.Pool as `master`.
+    const pool = (t.ds.driver as unknown as { master: pg.Pool }).master;
     const held: pg.PoolClient[] = [];
     for (let i = 0; i < 5; i++) held.push(await pool.connect());
     expect(pool.idleCount).toBe(0);
