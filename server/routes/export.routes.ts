@@ -15,7 +15,7 @@ function checkTable(table: string) {
 /** The reader's language: `?lang=en|es` when given (a student may want the other one), else the account's. */
 function readerT(req: Request) {
   const asked = typeof req.query.lang === 'string' ? req.query.lang : undefined;
-  if (asked !== undefined && asked !== 'en' && asked !== 'es') throw AppError.validation('lang must be "en" or "es".');
+  if (asked !== undefined && asked !== 'en' && asked !== 'es') throw AppError.validation('lang must be "en" or "es".').because('lang_invalid');
   return translator(toLang(asked ?? req.user?.language));
 }
 

@@ -23,7 +23,7 @@ const single: Record<LogKind, { resource: string; param: string }> = {
  */
 function uploadError(err: unknown) {
   if (!err || (err as { code?: string }).code === 'LIMIT_FILE_SIZE') return err;
-  return AppError.validation(`The upload could not be read (${(err as Error).message ?? 'malformed form'}). Send one image in the "photo" field.`);
+  return AppError.validation(`The upload could not be read (${(err as Error).message ?? 'malformed form'}). Send one image in the "photo" field.`).because('upload_unreadable');
 }
 
 export function logRoutes(ctx: AppContext): RouteSpec[] {
@@ -61,7 +61,7 @@ export function logRoutes(ctx: AppContext): RouteSpec[] {
         `/${kind}/:${param}`,
         access.owner(resource, param),
         handle(async (req, res) => {
-          if (typeof req.body !== 'object' || req.body === null || Array.isArray(req.body)) throw AppError.validation('Send the fields to change as a JSON object.');
+          if (typeof req.body !== 'object' || req.body === null || Array.isArray(req.body)) throw AppError.validation('Send the fields to change as a JSON object.').because('json_object_required');
           res.json({ data: await svc.update(kind, id(req.params[param]), req.user!.id, req.body as Record<string, unknown>) });
         }),
       ),
@@ -99,7 +99,7 @@ export function logRoutes(ctx: AppContext): RouteSpec[] {
       access.owner('observation', 'observationId'),
       (req, res, next) => upload(req, res, (err: unknown) => next(uploadError(err))),
       handle(async (req, res) => {
-        if (!req.file) throw AppError.validation('Attach a photo in the "photo" field.');
+        if (!req.file) throw AppError.validation('Attach a photo in the "photo" field.').because('photo_missing');
         res.status(201).json({ data: await photos.add(id(req.params.observationId), req.file.buffer) });
       }),
     ),

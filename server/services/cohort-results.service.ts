@@ -330,14 +330,16 @@ export function cohortResultsService(ctx: AppContext) {
         pseudonym: string;
       }[];
       if (!share) {
-        throw AppError.validation('That trial is not shared with this cohort.', [{ path: 'trialId', message: 'Not a trial shared with this cohort.' }]);
+        throw AppError.validation('That trial is not shared with this cohort.', [{ path: 'trialId', message: 'Not a trial shared with this cohort.', reason: 'trial_not_shared' }]).because(
+          'trial_not_shared',
+        );
       }
       const rows = (await ctx.ds.query(
         `INSERT INTO trial_exclusions (cohort_id, trial_id, reason, excluded_by) VALUES ($1, $2, $3, $4)
          ON CONFLICT (cohort_id, trial_id) DO NOTHING RETURNING created_at`,
         [cohortId, input.trialId, input.reason, userId],
       )) as { created_at: Date }[];
-      if (!rows[0]) throw new AppError('conflict', 'This trial is already excluded. Remove the exclusion first to record a different reason.');
+      if (!rows[0]) throw new AppError('conflict', 'This trial is already excluded. Remove the exclusion first to record a different reason.').because('already_excluded');
       return { trialId: input.trialId, pseudonym: share.pseudonym, reason: input.reason, createdAt: rows[0].created_at.toISOString(), excludedByMe: true };
     },
 

@@ -164,7 +164,7 @@ export function importService(ctx: AppContext) {
         status: string;
       }[];
       if (!trial) throw AppError.notFound('Trial');
-      if (trial.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to import.');
+      if (trial.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to import.').because('trial_closed_import');
       const plots = (await ctx.ds.query('SELECT id, label FROM plots WHERE trial_id = $1', [trialId])) as { id: string; label: string }[];
       const plotByLabel = new Map(plots.map((p) => [p.label.toLowerCase(), p.id]));
       const tomorrow = new Date(ctx.now().getTime() + 36 * 3600 * 1000).toISOString().slice(0, 10);
@@ -233,9 +233,9 @@ export function importService(ctx: AppContext) {
         throw AppError.validation(`${errors.length} problem${errors.length === 1 ? '' : 's'} found: nothing was imported. Fix the file and try again.`, {
           total: errors.length,
           rows: errors.slice(0, MAX_LISTED_ERRORS),
-        });
+        }).because('import_rows_invalid', { count: errors.length });
       }
-      if (!valid.length) throw AppError.validation('The file has no rows to import.');
+      if (!valid.length) throw AppError.validation('The file has no rows to import.').because('import_empty');
 
       const target = targets[kind];
       const keys = target.byTrial ? importFingerprints(kind, valid) : null;
@@ -262,7 +262,7 @@ export function importService(ctx: AppContext) {
           ).rows as {
             n: number;
           }[];
-          if (gone!.n) throw new AppError('conflict', 'A plot of this trial was removed during the import. Nothing was imported; try again.');
+          if (gone!.n) throw new AppError('conflict', 'A plot of this trial was removed during the import. Nothing was imported; try again.').because('plot_removed_during_import');
           const res = await client.query(
             `INSERT INTO ${target.table} (trial_id, entered_by, idempotency_key, ${colList})
              SELECT $1, $2, s.k, ${staging} FROM import_rows s

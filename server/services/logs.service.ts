@@ -109,24 +109,30 @@ async function assertWithinTrial(em: EntityManager, trialId: string, cfg: LogKin
   if (day < t.planting_date || day > last) {
     const ends = t.end_date ? `ends ${t.end_date}` : 'still running';
     throw AppError.validation('The date is outside the trial.', [
-      { path: cfg.timeField, message: `${day} is outside this trial (planted ${t.planting_date}, ${ends}); future dates are refused too.` },
-    ]);
+      { path: cfg.timeField, message: `${day} is outside this trial (planted ${t.planting_date}, ${ends}); future dates are refused too.`, reason: 'date_outside_trial' },
+    ]).because('date_outside_trial');
   }
 }
 
 async function assertPlotInTrial(em: EntityManager, trialId: string, plotId: unknown, required: boolean) {
   if (plotId === null || plotId === undefined) {
-    if (required) throw AppError.validation('Choose a plot.', [{ path: 'plotId', message: 'Choose a plot.' }]);
+    if (required) throw AppError.validation('Choose a plot.', [{ path: 'plotId', message: 'Choose a plot.', reason: 'plot_required' }]).because('plot_required');
     return;
   }
   const [p] = (await em.query('SELECT trial_id FROM plots WHERE id = $1', [plotId])) as { trial_id: string }[];
-  if (!p || p.trial_id !== trialId) throw AppError.validation('That plot is not part of this trial.', [{ path: 'plotId', message: 'That plot is not part of this trial.' }]);
+  if (!p || p.trial_id !== trialId) {
+    throw AppError.validation('That plot is not part of this trial.', [{ path: 'plotId', message: 'That plot is not part of this trial.', reason: 'plot_not_in_trial' }]).because(
+      'plot_not_in_trial',
+    );
+  }
 }
 
 async function assertPotOnPlot(em: EntityManager, input: Record<string, unknown>) {
   if (!input.potId) return;
   const [p] = (await em.query('SELECT plot_id FROM pots WHERE id = $1', [input.potId])) as { plot_id: string | null }[];
-  if (!p || p.plot_id !== input.plotId) throw AppError.validation('That pot does not sit in this plot.', [{ path: 'potId', message: 'That pot does not sit in this plot.' }]);
+  if (!p || p.plot_id !== input.plotId) {
+    throw AppError.validation('That pot does not sit in this plot.', [{ path: 'potId', message: 'That pot does not sit in this plot.', reason: 'pot_not_in_plot' }]).because('pot_not_in_plot');
+  }
 }
 
 export function logsService(ctx: AppContext) {
@@ -203,7 +209,7 @@ export function logsService(ctx: AppContext) {
         delete current.idempotencyKey;
         // Validate the record as it will be, with the kind's full schema.
         const merged = cfg.schema.safeParse({ ...current, ...patch });
-        if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error));
+        if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error)).because('invalid_fields');
         const next = merged.data as Record<string, unknown>;
         await checkAll(tx, kind, before.trialId, next);
         // Own columns only: `'constructor' in cfg.columns` is true too, and would reach the SQL as a column name.

@@ -19,20 +19,20 @@ export function photosService(ctx: AppContext) {
   return {
     /** Stores an uploaded image after checking what it really is (never trusting its name or declared type). */
     async add(observationId: string, buffer: Buffer) {
-      if (buffer.length === 0) throw AppError.validation('The file is empty.');
-      if (buffer.length > PHOTO_MAX_BYTES) throw new AppError('payload_too_large', `Photos can be at most ${PHOTO_MAX_BYTES / 1048576} MB.`);
+      if (buffer.length === 0) throw AppError.validation('The file is empty.').because('photo_empty');
+      if (buffer.length > PHOTO_MAX_BYTES) throw new AppError('payload_too_large', `Photos can be at most ${PHOTO_MAX_BYTES / 1048576} MB.`).because('photo_too_large', { mb: PHOTO_MAX_BYTES / 1048576 });
       const type = await fileTypeFromBuffer(buffer);
       if (!type || !allowed.has(type.mime)) {
-        throw new AppError('unsupported_media_type', 'Only JPEG, PNG and WebP photos can be uploaded; this file is something else, whatever its name says.');
+        throw new AppError('unsupported_media_type', 'Only JPEG, PNG and WebP photos can be uploaded; this file is something else, whatever its name says.').because('photo_type');
       }
       let dims: { width?: number; height?: number };
       try {
         dims = imageSize(buffer);
       } catch {
-        throw new AppError('unsupported_media_type', 'This image could not be read. Is the file damaged?');
+        throw new AppError('unsupported_media_type', 'This image could not be read. Is the file damaged?').because('photo_unreadable');
       }
       if (!dims.width || !dims.height || dims.width * dims.height > PHOTO_MAX_PIXELS) {
-        throw new AppError('payload_too_large', 'This image is too large in pixels. Resize it to under 40 megapixels.');
+        throw new AppError('payload_too_large', 'This image is too large in pixels. Resize it to under 40 megapixels.').because('photo_too_many_pixels', { megapixels: PHOTO_MAX_PIXELS / 1e6 });
       }
       // The storage key is ours alone: nothing from the uploaded file name reaches it.
       const key = `observations/${observationId}/${randomUUID()}.${type.ext}`;

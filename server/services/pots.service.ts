@@ -27,7 +27,9 @@ export function potsService(ctx: AppContext) {
   async function assertOwnPlot(ownerId: string, plotId: string | null | undefined) {
     if (!plotId) return;
     const [row] = (await ctx.ds.query(`SELECT t.owner_id FROM plots p JOIN trials t ON t.id = p.trial_id WHERE p.id = $1`, [plotId])) as { owner_id: string }[];
-    if (row?.owner_id !== ownerId) throw AppError.validation('That plot is not one of yours.', [{ path: 'plotId', message: 'Choose one of your own plots.' }]);
+    if (row?.owner_id !== ownerId) {
+      throw AppError.validation('That plot is not one of yours.', [{ path: 'plotId', message: 'Choose one of your own plots.', reason: 'plot_not_yours' }]).because('plot_not_yours');
+    }
   }
 
   async function present(rows: PotEntity[]): Promise<Pot[]> {
@@ -86,7 +88,7 @@ export function potsService(ctx: AppContext) {
     async update(id: string, ownerId: string, input: UpdatePotInput): Promise<Pot> {
       const before = await pots.findOneByOrFail({ id });
       const merged = createPotInputSchema.safeParse({ ...before, ...input });
-      if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error));
+      if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error)).because('invalid_fields');
       await assertOwnPlot(ownerId, input.plotId);
       if (Object.keys(input).length) await pots.update(id, input);
       return this.get(id);

@@ -95,7 +95,7 @@ export function presentPlot(p: PlotEntity, potIds: string[] = []): Plot {
 export async function assertTrialWritable(em: EntityManager, trialId: string) {
   const [row] = (await em.query('SELECT status FROM trials WHERE id = $1', [trialId])) as { status: TrialStatus }[];
   if (!row) throw AppError.notFound('Trial');
-  if (row.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to make changes.');
+  if (row.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to make changes.').because('trial_closed');
 }
 
 const allowedTransitions: Record<TrialStatus, TrialStatus[]> = { draft: ['active', 'closed'], active: ['closed', 'draft'], closed: ['active'] };
@@ -135,7 +135,7 @@ export function trialsService(ctx: AppContext) {
         const before = await repo.findOneByOrFail({ id });
         // Check the merged record as a whole (e.g. an end date before the planting date).
         const merged = createTrialInputSchema.safeParse({ ...before, ...input });
-        if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error));
+        if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error)).because('invalid_fields');
         if (Object.keys(input).length === 0) return;
         await repo.update(id, input);
         if (await mustAudit(tx, id)) {
@@ -152,7 +152,7 @@ export function trialsService(ctx: AppContext) {
         if (!row) throw AppError.notFound('Trial');
         if (row.status === status) return;
         if (!allowedTransitions[row.status].includes(status)) {
-          throw new AppError('conflict', `A ${row.status} trial cannot become ${status}.`);
+          throw new AppError('conflict', `A ${row.status} trial cannot become ${status}.`).because('status_change_invalid', { from: row.status, to: status });
         }
         await tx.query('UPDATE trials SET status = $2, updated_at = now() WHERE id = $1', [id, status]);
         await writeAudit(tx, { trialId: id, actorId, action: 'status', entityType: 'trial', entityId: id, changes: { status: [row.status, status] } });
@@ -164,7 +164,7 @@ export function trialsService(ctx: AppContext) {
       const [{ shared }] = (await ctx.ds.query(`SELECT EXISTS (SELECT 1 FROM trial_shares WHERE trial_id = $1 AND withdrawn_at IS NULL) AS shared`, [id])) as [
         { shared: boolean },
       ];
-      if (shared) throw new AppError('conflict', 'This trial is shared with a cohort. Withdraw it from every cohort before deleting it.');
+      if (shared) throw new AppError('conflict', 'This trial is shared with a cohort. Withdraw it from every cohort before deleting it.').because('trial_shared_delete');
       await trials.delete(id);
     },
 
@@ -184,7 +184,7 @@ export function trialsService(ctx: AppContext) {
           if (await mustAudit(tx, trialId)) await writeAudit(tx, { trialId, actorId, action: 'create', entityType: 'plot', entityId: plot.id, changes: { ...input } });
           return presentPlot(plot);
         } catch (err) {
-          if ((err as { code?: string }).code === '23505') throw AppError.validation('Plot labels must differ within a trial.', [{ path: 'label', message: 'Another plot in this trial has this label.' }]);
+          if ((err as { code?: string }).code === '23505') throw plotLabelTaken();
           throw err;
         }
       });
@@ -200,7 +200,7 @@ export function trialsService(ctx: AppContext) {
           try {
             await repo.update(plotId, input);
           } catch (err) {
-            if ((err as { code?: string }).code === '23505') throw AppError.validation('Plot labels must differ within a trial.', [{ path: 'label', message: 'Another plot in this trial has this label.' }]);
+            if ((err as { code?: string }).code === '23505') throw plotLabelTaken();
             throw err;
           }
         }
@@ -262,8 +262,12 @@ export function trialsService(ctx: AppContext) {
     /** Shares a trial into a cohort the owner contributes to (re-sharing a withdrawn one restores it). */
     async share(trialId: string, userId: string, cohortId: string) {
       const [member] = (await ctx.ds.query(`SELECT role FROM cohort_memberships WHERE cohort_id = $1 AND user_id = $2`, [cohortId, userId])) as { role: string }[];
-      if (!member) throw AppError.validation('You can share only into cohorts you belong to.', [{ path: 'cohortId', message: 'You are not a member of that cohort.' }]);
-      if (member.role !== 'contributor') throw AppError.forbidden('Observers read a cohort; they do not share trials into it. Ask the lead to make you a contributor.');
+      if (!member) {
+        throw AppError.validation('You can share only into cohorts you belong to.', [{ path: 'cohortId', message: 'You are not a member of that cohort.', reason: 'share_not_member' }]).because(
+          'share_not_member',
+        );
+      }
+      if (member.role !== 'contributor') throw AppError.forbidden('Observers read a cohort; they do not share trials into it. Ask the lead to make you a contributor.').because('observer_cannot_share');
       await ctx.ds.query(
         `INSERT INTO trial_shares (trial_id, cohort_id) VALUES ($1, $2)
          ON CONFLICT (trial_id, cohort_id) DO UPDATE SET withdrawn_at = NULL, shared_at = CASE WHEN trial_shares.withdrawn_at IS NULL THEN trial_shares.shared_at ELSE now() END`,
@@ -283,10 +287,19 @@ export function trialsService(ctx: AppContext) {
   };
 }
 
+function plotLabelTaken(): AppError {
+  return AppError.validation('Plot labels must differ within a trial.', [{ path: 'label', message: 'Another plot in this trial has this label.', reason: 'plot_label_taken' }]).because(
+    'plot_label_taken',
+  );
+}
+
 async function assertTreatmentKnown(em: EntityManager, trialId: string, treatment: string | null | undefined) {
   if (treatment === null || treatment === undefined) return;
   const [t] = (await em.query('SELECT treatments FROM trials WHERE id = $1', [trialId])) as { treatments: string[] }[];
   if (!t?.treatments.map((x) => x.toLowerCase()).includes(treatment.toLowerCase())) {
-    throw AppError.validation('That treatment is not part of this trial.', [{ path: 'treatment', message: `Choose one of: ${t?.treatments.join(', ')}.` }]);
+    throw AppError.validation('That treatment is not part of this trial.', [{ path: 'treatment', message: `Choose one of: ${t?.treatments.join(', ')}.`, reason: 'treatment_unknown' }]).because(
+      'treatment_unknown',
+      { treatments: t?.treatments.join(', ') ?? '' },
+    );
   }
 }

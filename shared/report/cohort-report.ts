@@ -21,8 +21,9 @@ export interface CohortReportInput {
   t?: Translate;
 }
 
-const LICENCES = ['CC-BY-4.0', 'CC-BY-SA-4.0', 'CC0-1.0', 'CC-BY-NC-4.0'] as const;
-const isLicence = (l: string): l is (typeof LICENCES)[number] => (LICENCES as readonly string[]).includes(l);
+/** Licence ids (cohort settings) → their keys under report.cohort.licences (ids hold dots, keys cannot). */
+const LICENCE_KEYS = { 'CC-BY-4.0': 'ccBy', 'CC-BY-SA-4.0': 'ccBySa', 'CC0-1.0': 'cc0', 'CC-BY-NC-4.0': 'ccByNc' } as const;
+const isLicence = (l: string): l is keyof typeof LICENCE_KEYS => Object.hasOwn(LICENCE_KEYS, l);
 
 export function cohortReportMarkdown(r: CohortReportInput): string {
   const t = r.t ?? enT;
@@ -128,7 +129,7 @@ export function cohortReportMarkdown(r: CohortReportInput): string {
   for (const f of r.files) lines.push(`- \`${f}\``);
   lines.push('', t('report.cohort.filesNote'), '');
   lines.push(`## ${t('report.cohort.citation')}`, '');
-  const licence = isLicence(r.licence) ? t(`report.cohort.licences.${r.licence}`) : r.licence;
+  const licence = isLicence(r.licence) ? t(`report.cohort.licences.${LICENCE_KEYS[r.licence]}`) : r.licence;
   lines.push(t('report.cohort.citationLine', { name: r.cohortName, year: res.asOf.slice(0, 4), date: r.generatedOn, licence }), '');
   return lines.join('\n');
 }

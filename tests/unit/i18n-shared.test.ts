@@ -138,4 +138,49 @@ describe('trial charts in both languages', () => {
     expect(en).toMatch(/>0\.0\d+</);
     expect(es).toContain('Agua aplicada (m³)');
   }, 30_000);
+  it('writes date ticks day first in Spanish ("1 jun") and month first in English ("Jun 1")', async () => {
+    const a = shoes();
+    const render = async (lang: 'en' | 'es') => {
+      const [cumulative] = trialCharts(a, ['olla', 'surface'], { units: 'metric', width: 400, t: translator(lang) });
+      const view = new vega.View(vega.parse(compile(cumulative!.spec as unknown as TopLevelSpec).spec), { renderer: 'none', locale: vegaLocale(lang) } as unknown as vega.ViewOptions);
+      const svg = await view.toSVG();
+      view.finalize();
+      return svg;
+    };
+    // The shoes season logs water on 1 and 2 June 2026 (input() above).
+    const es = await render('es');
+    const en = await render('en');
+    expect(es).toMatch(/>\d{1,2} jun</);
+    expect(es).not.toMatch(/>(jun|Jun) \d/);
+    expect(en).toMatch(/>Jun \d{1,2}</);
+  }, 30_000);
+
+  it('names soil-moisture methods in the facet, never by their codes', () => {
+    const days = ['2026-06-01', '2026-06-02'];
+    const moisture = days.flatMap((day) => [
+      { day, treatment: 'olla', method: 'probe_index', mean: 6, n: 2 },
+      { day, treatment: 'surface', method: 'vwc', mean: 21, n: 2 },
+    ]);
+    const a = analyseTrial(input(shoesA.map((x, i) => [x, shoesB[i]!]), { moisture }));
+    const chart = (lang: 'en' | 'es') => trialCharts(a, ['olla', 'surface'], { units: 'metric', width: 400, t: translator(lang) }).find((c) => c.id === 'soil-moisture')!;
+    const es = JSON.stringify(chart('es').spec);
+    expect(es).toContain('Sonda de mano (1–10)');
+    expect(es).toContain('Contenido volumétrico de agua (%)');
+    expect(es).not.toContain('probe_index');
+    expect(JSON.stringify(chart('en').spec)).toContain('Handheld probe (1–10)');
+  });
+});
+
+describe('vega locales', () => {
+  // d3-time-format's en-US locale file and CLDR "es" month names (from memory, common practice).
+  it('derives short names from the full ones, the same shape for both languages', () => {
+    const en = vegaLocale('en');
+    const es = vegaLocale('es');
+    expect(en.time.shortMonths).toEqual(['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec']);
+    expect(en.time.shortDays).toEqual(['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat']);
+    expect(es.time.shortMonths).toEqual(['ene', 'feb', 'mar', 'abr', 'may', 'jun', 'jul', 'ago', 'sep', 'oct', 'nov', 'dic']);
+    expect(es.time.shortDays).toEqual(['dom', 'lun', 'mar', 'mié', 'jue', 'vie', 'sáb']);
+    expect([en.number.decimal, es.number.decimal]).toEqual(['.', ',']);
+    expect(Object.keys(es.time)).toEqual(Object.keys(en.time));
+  });
 });
