@@ -98,5 +98,27 @@ describe('GET /api/cohorts/:cohortId/report.zip', () => {
     expect(md).toMatch(/Water saved/);
     expect(md).toMatch(/k = 3 trials/);
     expect(md).toMatch(/Licence: Creative Commons Attribution 4\.0 International \(CC BY 4\.0\)/);
+
+    // The same bundle for a Spanish reader: the methods text and the charts in Spanish (pseudonyms
+    // read "Cultivador K7"), the CSVs byte for byte the same (members stay "Grower K7" there).
+    const es = await student.agent.get(`/api/cohorts/${cohort.id}/report.zip?lang=es`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(es.status).toBe(200);
+    const esDir = await unzipper.Open.buffer(es.body as Buffer);
+    const read = async (d: typeof dir, name: string) => (await d.files.find((f) => f.path === name)!.buffer()).toString('utf8');
+    const mdEs = await read(esDir, 'methods-and-results.md');
+    expect(mdEs).toMatch(/## Métodos/);
+    expect(mdEs).toMatch(/metaanálisis de efectos aleatorios \(τ² estimada por DerSimonian-Laird\)/);
+    expect(mdEs).toMatch(/k = 3 ensayos/);
+    expect(mdEs).toMatch(/Licencia: Creative Commons Atribución 4\.0 Internacional \(CC BY 4\.0\)/);
+    for (const english of ['## Methods', '## Results', '## Caveats', 'Pooled by random effects', 'Growers appear', 'Single-pair trials']) expect(mdEs).not.toContain(english);
+    expect(await read(esDir, 'charts/forest-water-saved.svg')).toMatch(/Cultivador [A-Z]\d+/);
+    expect(await read(esDir, 'charts/forest-water-saved.svg')).not.toMatch(/Grower [A-Z]\d+/);
+    const trialsCsv = await read(esDir, 'data/trials.csv');
+    expect(trialsCsv).toBe(await read(dir, 'data/trials.csv'));
+    expect(trialsCsv).toMatch(/Grower [A-Z]\d+/);
   });
 });

@@ -465,9 +465,9 @@ describe('GET /api/trials/:trialId/forecast', () => {
     const data = res.body.data;
     expect(data).toMatchObject({ trialId: g.trial.id, thresholdPct: 25, et0: { source: 'default', mmPerDay: 5, days: 0 } });
     expect(data.pots).toHaveLength(2);
-    expect(data.pots[0]).toMatchObject({ potId: g.pot.id, basis: 'seep-test', dailyDrawL: 4, levelL: 6, levelPct: 60, belowThreshold: false, dryAt: at(2.5).toISOString(), lastRefillL: 10, note: null });
+    expect(data.pots[0]).toMatchObject({ potId: g.pot.id, basis: 'seep-test', dailyDrawL: 4, levelL: 6, levelPct: 60, belowThreshold: false, dryAt: at(2.5).toISOString(), lastRefillL: 10, note: null, noteCode: null });
     // The pot without a refill comes last, with the reason.
-    expect(data.pots[1]).toMatchObject({ potId: g.otherPot.id, basis: 'crop-need', levelL: null, note: expect.stringContaining('No refill logged yet') });
+    expect(data.pots[1]).toMatchObject({ potId: g.otherPot.id, basis: 'crop-need', levelL: null, note: expect.stringContaining('No refill logged yet'), noteCode: 'no_refill' });
     // Tomato 32 days after planting, 2 days into development: Kc = 0.6 + (2 / 40)(1.15 − 0.6) (FAO-56 Table 12
     // and eq. 66; stage lengths as in crop-coefficients.ts) × 5 mm/day × the wetted circle π (0.28 m)².
     expect(data.pots[1].dailyDrawL).toBeCloseTo((0.6 + (2 / 40) * 0.55) * 5 * Math.PI * 0.28 ** 2, 9);
