@@ -43,7 +43,12 @@ export const UNIT_LABELS: Record<Quantity, Record<UnitSystem, string>> = {
   rate: { metric: 'L/day', us: 'gal/day' },
 };
 
-export function unitLabel(quantity: Quantity, system: UnitSystem): string {
+/** Unit symbols that are words in part ("L/day"): their Spanish form. Every other symbol is the same in both languages. */
+const SPANISH_LABELS: Partial<Record<Quantity, Record<UnitSystem, string>>> = { rate: { metric: 'L/día', us: 'gal/día' } };
+
+/** The unit's symbol; `lang` ('en' | 'es', default English) picks the Spanish form of "L/day". */
+export function unitLabel(quantity: Quantity, system: UnitSystem, lang: string = 'en'): string {
+  if (lang === 'es') return SPANISH_LABELS[quantity]?.[system] ?? UNIT_LABELS[quantity][system];
   return UNIT_LABELS[quantity][system];
 }
 

@@ -119,7 +119,8 @@ export interface GrowerPlan {
   trials: TrialPlan[];
   spares?: SparePot[];
   /** One pot cracks: it drains in the night before the morning of `day`, is lifted then and a spare goes in. */
-  crackedPot?: { day: string; pair: number; replacementLabel: string };
+  /** `note` is added to the cracked pot's notes in the grower's language; {day} and {spare} are filled in. */
+  crackedPot?: { day: string; pair: number; replacementLabel: string; note: string };
   /** Weeks in which the grower typed gallons into the litre field. */
   wrongUnit?: { from: string; to: string };
   /** Forecast days after the last observed day, optionally with a frost night. */
@@ -287,7 +288,12 @@ export const GROWERS: GrowerPlan[] = [
         notes: 'Olla de repuesto, del mismo taller.',
       },
     ],
-    crackedPot: { day: '2026-07-21', pair: 2, replacementLabel: 'R1' },
+    crackedPot: {
+      day: '2026-07-21',
+      pair: 2,
+      replacementLabel: 'R1',
+      note: 'El {day} apareció una grieta fina junto al cuello: se vació durante la noche. La saqué; {spare} ocupó su lugar.',
+    },
     observations: [
       { day: '2026-05-11', hour: 9, text: 'Trasplanté las calabacitas y enterré las ollas. Regué todo a mano para asentar.' },
       {

@@ -446,7 +446,7 @@ class TrialSeason {
     const spare = this.garden.shelfOfPots.byLabel(crack.replacementLabel);
     cracked.condition = 'cracked';
     cracked.plotId = null;
-    cracked.notes = `${cracked.notes} Hairline crack by the neck found on ${day}: it drained overnight. Lifted; ${spare.label} took its place.`.trim();
+    cracked.notes = `${cracked.notes} ${crack.note.replace('{day}', day).replace('{spare}', spare.label)}`.trim();
     spare.plotId = plot.id;
     spare.installedOn = day;
     spare.contentL = 0;
