@@ -144,6 +144,17 @@ describe('the notebook in Spanish', () => {
     await expect(row.getByRole('cell').nth(3).textContent()).resolves.toBe('8,50');
     await page.getByRole('columnheader', { name: 'Volumen (L)' }).waitFor();
     await fitsTheScreen('es-records-360');
+
+    // The history of changes names fields and values in Spanish ("Estado: Borrador → Activo"), not "status: draft".
+    await page.getByRole('tab', { name: 'Historial' }).click();
+    await page.getByText('Estado: Borrador → Activo').waitFor();
+    expect(await page.getByRole('tabpanel').innerText()).not.toMatch(/status|draft|active/);
+    await fitsTheScreen('es-history-360');
+
+    // The refill forecast: the pot never refilled says so in Spanish (sent as the code no_refill).
+    await page.getByRole('tab', { name: 'Resultados' }).click();
+    await page.getByText('Aún no hay rellenos registrados: registra uno en la Ronda y el pronóstico parte de él.').waitFor();
+    expect(await page.getByRole('tabpanel').innerText()).not.toContain('No refill logged yet');
     expect(env.pageErrors).toEqual([]);
   });
 });

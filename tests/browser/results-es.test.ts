@@ -85,6 +85,10 @@ describe('results in Spanish', () => {
     const cumulative = page.locator('figure').filter({ has: page.getByRole('heading', { name: 'Agua aplicada durante la temporada, por parcela' }) });
     await cumulative.locator('svg.marks').waitFor();
     expect(await cumulative.locator('svg.marks').textContent()).toContain('Agua aplicada hasta la fecha');
+    // Date ticks read day first in Spanish ("17 may"), never "may 17" (charts.timeFormat.day).
+    const ticks = (await cumulative.locator('svg.marks').textContent()) ?? '';
+    expect(ticks).toMatch(/\d{1,2} (may|jun|jul|ago|sept?)/);
+    expect(ticks).not.toMatch(/(may|jun|jul|ago|sept?|May|Jun|Jul|Aug|Sep) \d{1,2}/);
     await page.getByText('Ver los números en una tabla').first().waitFor();
     await both('results-tab-es');
     await signOut(page);
@@ -112,6 +116,16 @@ describe('results in Spanish', () => {
     const heterogeneity = (await page.getByRole('group', { name: 'Cuánto difieren los huertos' }).textContent()) ?? '';
     expect(heterogeneity).toMatch(/La heterogeneidad es (baja|moderada|sustancial|considerable)/);
     expect(heterogeneity).toMatch(/\d,\d{2}/); // Cochran's Q with two decimals
+    // Members read "Cultivador K7" (stored and exported as "Grower K7"); pot capacity classes are words in Spanish;
+    // the notes on how the results were made are Spanish (sent as codes, worded by the page).
+    const body = (await page.locator('main').innerText()) ?? '';
+    expect(body).toMatch(/Cultivador [A-Z]\d+ · /);
+    expect(body).not.toMatch(/Grower [A-Z]\d+/);
+    expect(body).toMatch(/De 6\sL a 10\sL/);
+    expect(body).not.toMatch(/6–10 L|<6 L|>10 L/);
+    await page.getByText('Cómo se calculan estos números').click();
+    await page.getByText(/Cada cultivador aparece solo con su seudónimo en la cohorte/).waitFor();
+    expect(await page.locator('main').innerText()).not.toMatch(/Growers appear by their cohort pseudonym|Pooled by random effects/);
     await both('cohort-results-es');
   });
 });
