@@ -62,6 +62,27 @@ describe('gardens', () => {
   });
 });
 
+describe('label order', () => {
+  it('lists pots and plots in counting order (B2 before B10), as people number them', async () => {
+    // ICU numeric collation (CLDR "kn", Unicode Technical Standard #35); migration NaturalLabelOrder.
+    const a = await grower();
+    for (const label of ['B10', 'B2', 'B1', 'b3']) {
+      expect((await a.post('/api/pots', { label, capacityL: 8, widestDiameterCm: 26, shape: 'globe', make: 'coil_built' })).status).toBe(201);
+    }
+    const pots = (await a.get('/api/pots')).body.data as { label: string }[];
+    expect(pots.map((p) => p.label)).toEqual(['B1', 'B2', 'b3', 'B10']);
+
+    const { trial } = await makePairedTrial(a);
+    await a.post(`/api/trials/${trial.id}/status`, { status: 'draft' });
+    for (const [label, blockKey] of [['Z10', 'C10'], ['Z9', 'C9']]) {
+      expect((await a.post(`/api/trials/${trial.id}/plots`, { label, blockKey, areaM2: 2 })).status).toBe(201);
+    }
+    const plots = (await a.get(`/api/trials/${trial.id}/plots`)).body.data as { label: string; blockKey: string }[];
+    const blocks = plots.map((p) => p.blockKey);
+    expect(blocks.indexOf('C9')).toBeLessThan(blocks.indexOf('C10'));
+  });
+});
+
 describe('trials and plots', () => {
   it('refuses an end date before planting and a paired design without olla and surface', async () => {
     const a = await grower();
