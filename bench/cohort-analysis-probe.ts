@@ -8,8 +8,10 @@
  *     first, as the route does) into bench/tmp/cohort-probe/inputs.json;
  *   npx tsx bench/cohort-analysis-probe.ts --against <git rev> [--rounds 30]
  *     extracts <rev>'s shared/ into bench/tmp/cohort-probe/<rev>/, checks that both give the same
- *     JSON, byte for byte, for 8 option sets, then times both in one process, interleaved (the order
- *     alternates each round), and prints min / median / p90 per step.
+ *     JSON, byte for byte, for 8 option sets (when <rev> predates a trim of the response: its answer
+ *     cut down to the current schema, and the dropped forest fields equal to those forestTrials joins
+ *     from the trial rows), then times both in one process, interleaved (the order alternates each
+ *     round), and prints min / median / p90 per step.
  *
  * For a profile: `node --cpu-prof` on a bundle of this file (esbuild --bundle), so frames keep names.
  */
