@@ -14,6 +14,22 @@ function isDatabaseUnavailable(err: unknown): boolean {
   return /Connection terminated|connect ECONNREFUSED|the database system is (starting up|shutting down)/i.test(e.message ?? '');
 }
 
+/**
+ * The database is up but every connection is taken: pg-pool gave up waiting for a free client
+ * (`connectionTimeoutMillis`, server/db/data-source.ts), the server refuses new connections
+ * (53300 too_many_connections) or a connection attempt timed out. Nothing was done; a retry soon
+ * is the right answer, so this is a 503 with Retry-After, not a 500.
+ */
+const busyCodes = new Set(['53300', 'ETIMEDOUT']);
+
+function isDatabaseBusy(err: unknown): boolean {
+  const e = err as { code?: string; message?: string; driverError?: { code?: string } } | null;
+  if (!e) return false;
+  const code = e.code ?? e.driverError?.code;
+  if (code && busyCodes.has(code)) return true;
+  return /timeout exceeded when trying to connect|sorry, too many clients already/i.test(e.message ?? '');
+}
+
 export const notFoundHandler: RequestHandler = (req, _res, next) => {
   next(new AppError('not_found', `No API route for ${req.method} ${req.path}.`));
 };
@@ -53,6 +69,18 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       res.setHeader('Retry-After', '5');
       res.status(503).json({
         error: { code: 'service_unavailable', message: 'The database is not reachable right now. Nothing was saved; please try again in a few seconds.' },
+      });
+      return;
+    }
+    if (isDatabaseBusy(err)) {
+      logger.warn({ err: e.message, path: req.path }, 'database busy');
+      res.setHeader('Retry-After', '5');
+      res.status(503).json({
+        error: {
+          code: 'service_unavailable',
+          reason: 'database_busy',
+          message: 'Seepwise is very busy right now. Nothing was saved; please try again in a few seconds.',
+        },
       });
       return;
     }

@@ -168,6 +168,7 @@ export function weeklyNeedSpec(a: TrialAnalysis, treatments: string[], o: ChartO
   ]);
   if (!values.length) return null;
   const colour = treatmentScale(treatments);
+  const domain = [...treatments.map(applied), need];
   return {
     ...base(o, 240),
     data: { values },
@@ -175,8 +176,11 @@ export function weeklyNeedSpec(a: TrialAnalysis, treatments: string[], o: ChartO
     encoding: {
       x: { field: 'week', type: 'temporal', title: t('charts.trial.weekStarting') },
       y: { field: 'value', type: 'quantitative', title: t('charts.trial.perWeek', { unit }) },
-      color: { field: 'series', type: 'nominal', title: null, scale: { domain: [...treatments.map(applied), need], range: [...colour.range, '#b5562f'] } },
-      strokeDash: { field: 'series', type: 'nominal', legend: null },
+      // Colour and dash share one legend (Vega-Lite merges encodings of the same field; `legend: null`
+      // on either would drop the merged legend, leaving three unnamed lines): the crop need is dotted,
+      // the applied water solid, so the lines differ without colour too.
+      color: { field: 'series', type: 'nominal', title: null, scale: { domain, range: [...colour.range, '#b5562f'] } },
+      strokeDash: { field: 'series', type: 'nominal', title: null, scale: { domain, range: [...treatments.map(() => [1, 0]), [2, 3]] } },
     },
   };
 }

@@ -123,6 +123,16 @@ describe('the Round offline', () => {
     await env.screenshot('round-reloaded-offline-390');
     expect(await waterEvents()).toHaveLength(3);
 
+    // Signing out would clear the phone's queue: the app asks first, and staying keeps it.
+    await page.getByRole('button', { name: 'Menu' }).click();
+    await page.getByRole('button', { name: 'Sign out (Rosa)' }).click();
+    const ask = page.getByRole('dialog', { name: '1 record has not reached Seepwise yet' });
+    await ask.waitFor();
+    await env.screenshot('round-sign-out-unsent-390');
+    await ask.getByRole('button', { name: 'Stay signed in' }).click();
+    await ask.waitFor({ state: 'hidden' });
+    await page.getByText('Saved on this phone — waiting to send (1)').waitFor();
+
     // Signal back: sent once, with the key it was given before the reload (a fresh CSRF token is fetched).
     await goOnline();
     await page.getByText('Sent — 1 record saved.').waitFor();

@@ -2,7 +2,9 @@ import { Suspense, useState, type ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
 import { NavLink, useNavigate } from 'react-router-dom';
 import type { Account } from '@shared/schemas/auth';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { paths } from '@/config/paths';
+import { useOutboxSummary } from '@/features/offline/outbox';
 import { useAccountLanguage } from '@/i18n/use-account-language';
 import { UnitsProvider } from '@/lib/units';
 import { cn } from '@/lib/utils';
@@ -36,9 +38,24 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
   const [open, setOpen] = useState(false);
   const navigate = useNavigate();
   const items = visibleNavItems(user.role);
+  // Signing out clears this phone's cache, the outbox with it: ask first while records wait there.
+  const outbox = useOutboxSummary();
+  const unsent = outbox.waiting + outbox.refused;
+  const [askSignOut, setAskSignOut] = useState(false);
+  const [signingOut, setSigningOut] = useState(false);
+  const doSignOut = async () => {
+    setSigningOut(true);
+    try {
+      await onSignOut();
+      navigate(paths.signIn);
+    } finally {
+      setSigningOut(false);
+      setAskSignOut(false);
+    }
+  };
   const signOut = async () => {
-    await onSignOut();
-    navigate(paths.signIn);
+    if (unsent > 0) setAskSignOut(true);
+    else await doSignOut();
   };
   return (
     <div className="min-h-screen">
@@ -100,6 +117,18 @@ export function AppShell({ user, onSignOut, children }: { user: Account; onSignO
           <Suspense fallback={<p role="status">{t(($) => $.loading)}</p>}>{children}</Suspense>
         </UnitsProvider>
       </main>
+      <ConfirmDialog
+        open={askSignOut}
+        title={t(($) => $.signOutUnsent.title, { count: unsent })}
+        confirmLabel={t(($) => $.signOutUnsent.discard)}
+        cancelLabel={t(($) => $.signOutUnsent.stay)}
+        tone="danger"
+        pending={signingOut}
+        onConfirm={() => void doSignOut()}
+        onCancel={() => setAskSignOut(false)}
+      >
+        <p>{t(($) => $.signOutUnsent.body)}</p>
+      </ConfirmDialog>
     </div>
   );
 }
