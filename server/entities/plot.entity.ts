@@ -15,13 +15,14 @@ export class PlotEntity {
   @JoinColumn({ name: 'trial_id' })
   trial: Relation<TrialEntity>;
 
-  @Column({ type: 'varchar', length: 40 })
+  // Natural order (B2 before B10): migration NaturalLabelOrder.
+  @Column({ type: 'varchar', length: 40, collation: 'natural_sort' })
   label: string;
 
   @Column({ type: 'varchar', length: 40, nullable: true })
   treatment: string | null;
 
-  @Column({ name: 'block_key', type: 'varchar', length: 40 })
+  @Column({ name: 'block_key', type: 'varchar', length: 40, collation: 'natural_sort' })
   blockKey: string;
 
   @Column({ name: 'area_m2', type: 'double precision' })

@@ -17,7 +17,8 @@ export class PotEntity {
   @JoinColumn({ name: 'owner_id' })
   owner: Relation<UserEntity>;
 
-  @Column({ type: 'varchar', length: 40 })
+  // Natural order (B2 before B10): migration NaturalLabelOrder.
+  @Column({ type: 'varchar', length: 40, collation: 'natural_sort' })
   label: string;
 
   @Column({ name: 'capacity_l', type: 'double precision' })

@@ -130,11 +130,17 @@ async function assertPotOnPlot(em: EntityManager, input: Record<string, unknown>
 }
 
 export function logsService(ctx: AppContext) {
-  async function checkAll(em: EntityManager, kind: LogKind, trialId: string, input: Record<string, unknown>) {
+  /**
+   * `before`, on an edit: the record as stored. A refill names the pot where it sat that day; a pot
+   * moved to another plot since must not make its old refills uneditable, so the pot's current
+   * place is checked only when the edit changes the pot or the plot.
+   */
+  async function checkAll(em: EntityManager, kind: LogKind, trialId: string, input: Record<string, unknown>, before?: Record<string, unknown>) {
     const cfg = logKinds[kind];
     await assertPlotInTrial(em, trialId, input.plotId, cfg.plotRequired);
     await assertWithinTrial(em, trialId, cfg, input, ctx.now());
-    if (kind === 'water-events') await assertPotOnPlot(em, input);
+    const potMoved = !before || before.potId !== input.potId || before.plotId !== input.plotId;
+    if (kind === 'water-events' && potMoved) await assertPotOnPlot(em, input);
   }
 
   return {
@@ -205,7 +211,7 @@ export function logsService(ctx: AppContext) {
         const merged = cfg.schema.safeParse({ ...current, ...patch });
         if (!merged.success) throw AppError.validation('Some fields need attention.', zodIssues(merged.error));
         const next = merged.data as Record<string, unknown>;
-        await checkAll(tx, kind, before.trialId, next);
+        await checkAll(tx, kind, before.trialId, next, current);
         // Own columns only: `'constructor' in cfg.columns` is true too, and would reach the SQL as a column name.
         const fields = Object.keys(patch).filter((f) => Object.hasOwn(cfg.columns, f) && f !== 'idempotencyKey');
         if (fields.length) {

@@ -62,6 +62,27 @@ describe('gardens', () => {
   });
 });
 
+describe('label order', () => {
+  it('lists pots and plots in counting order (B2 before B10), as people number them', async () => {
+    // ICU numeric collation (CLDR "kn", Unicode Technical Standard #35); migration NaturalLabelOrder.
+    const a = await grower();
+    for (const label of ['B10', 'B2', 'B1', 'b3']) {
+      expect((await a.post('/api/pots', { label, capacityL: 8, widestDiameterCm: 26, shape: 'globe', make: 'coil_built' })).status).toBe(201);
+    }
+    const pots = (await a.get('/api/pots')).body.data as { label: string }[];
+    expect(pots.map((p) => p.label)).toEqual(['B1', 'B2', 'b3', 'B10']);
+
+    const { trial } = await makePairedTrial(a);
+    await a.post(`/api/trials/${trial.id}/status`, { status: 'draft' });
+    for (const [label, blockKey] of [['Z10', 'C10'], ['Z9', 'C9']]) {
+      expect((await a.post(`/api/trials/${trial.id}/plots`, { label, blockKey, areaM2: 2 })).status).toBe(201);
+    }
+    const plots = (await a.get(`/api/trials/${trial.id}/plots`)).body.data as { label: string; blockKey: string }[];
+    const blocks = plots.map((p) => p.blockKey);
+    expect(blocks.indexOf('C9')).toBeLessThan(blocks.indexOf('C10'));
+  });
+});
+
 describe('trials and plots', () => {
   it('refuses an end date before planting and a paired design without olla and surface', async () => {
     const a = await grower();
@@ -156,6 +177,25 @@ describe('logs', () => {
     expect((await t.ds.query('SELECT volume_l FROM water_events WHERE id = $1', [id]))[0].volume_l).toBe(7.5);
     expect((await a.delete(`/api/water-events/${id}`)).status).toBe(204);
     expect((await a.get(`/api/trials/${trial.id}/water-events`)).body.meta.total).toBe(4);
+  });
+
+  it('keeps an old refill editable after its pot has moved, and still checks a changed pot', async () => {
+    const a = await grower();
+    const { trial, plots, pots } = await makePairedTrial(a);
+    const olla = plots.find((p) => p.treatment === 'olla')!;
+    const pot = pots.find((p: { plotId: string }) => p.plotId === olla.id);
+    const refill = (await a.post(`/api/trials/${trial.id}/water-events`, { plotId: olla.id, occurredAt: '2026-06-03T07:00:00Z', kind: 'olla_refill', volumeL: 6, potId: pot.id })).body.data;
+    // The pot goes back on the shelf (no plot) later in the season.
+    expect((await a.patch(`/api/pots/${pot.id}`, { plotId: null })).status).toBe(200);
+    const fixed = await a.patch(`/api/water-events/${refill.id}`, { volumeL: 6.5 });
+    expect(fixed.status).toBe(200);
+    expect(fixed.body.data).toMatchObject({ volumeL: 6.5, potId: pot.id });
+    // Naming a pot that is not in the plot is still refused, and nothing changes.
+    const other = (await a.post('/api/pots', { label: 'Loose', capacityL: 8, widestDiameterCm: 26, shape: 'globe', make: 'coil_built' })).body.data;
+    const wrong = await a.patch(`/api/water-events/${refill.id}`, { potId: other.id });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.details.map((d: { path: string }) => d.path)).toContain('potId');
+    expect((await t.ds.query('SELECT pot_id, volume_l FROM water_events WHERE id = $1', [refill.id]))[0]).toEqual({ pot_id: pot.id, volume_l: 6.5 });
   });
 
   it.each([
