@@ -13,8 +13,11 @@
  * - among the grids that respect those rules, the one with the fewest pots whose wetted
  *   circles cover the whole bed is chosen (a cell is covered when its half-diagonal is
  *   within the wetted radius); ties go to the grid with the most overlap;
- * - when no allowed grid covers the bed (narrow or awkward beds), the densest allowed grid
- *   is returned with fullCoverage = false and the covered fraction.
+ * - with `minCoverage` below 1 (e.g. 0.9: corners may stay dry), the fewest pots whose
+ *   wetted circles cover at least that share of the bed, ties to the larger share: a grower
+ *   who plants in the middle of the bed need not buy pots for its corners;
+ * - when no allowed grid reaches the coverage asked for (narrow or awkward beds), the
+ *   densest allowed grid is returned with fullCoverage = false and the covered fraction.
  */
 import { AnalysisInputError, assertNonNegative, assertPositive } from '../analysis/input-error';
 
@@ -31,6 +34,8 @@ export interface Pot {
 export interface PlanOptions {
   /** Minimum distance between pot centres, default one widest diameter. */
   minCentreSpacingM?: number;
+  /** Share of the bed the wetted zones must reach, 0.5–1; default 1 (the whole bed, corners too). */
+  minCoverage?: number;
 }
 
 export interface OllaPlan {
@@ -44,7 +49,7 @@ export interface OllaPlan {
   columns: number;
   rows: number;
   fullCoverage: boolean;
-  /** Fraction of the bed within the wetted radius of some pot (sampled on a 200 × 200 grid). */
+  /** Fraction of the bed within the wetted radius of some pot (exact, see gridCoverage). */
   coveredFraction: number;
 }
 
@@ -60,26 +65,25 @@ export function wettedAreaM2(widestDiameterM: number): number {
   return Math.PI * r * r;
 }
 
-const COVERAGE_SAMPLES = 200;
 const EPS = 1e-9;
 
-function coveredFraction(bed: Bed, columns: number, rows: number, radius: number): number {
-  const a = bed.lengthM / columns;
-  const b = bed.widthM / rows;
-  let covered = 0;
-  for (let i = 0; i < COVERAGE_SAMPLES; i += 1) {
-    const x = ((i + 0.5) / COVERAGE_SAMPLES) * bed.lengthM;
-    // Nearest pot column centre to x, then the distance along x.
-    const col = Math.min(columns - 1, Math.floor(x / a));
-    const dx = Math.abs(x - (col + 0.5) * a);
-    for (let j = 0; j < COVERAGE_SAMPLES; j += 1) {
-      const y = ((j + 0.5) / COVERAGE_SAMPLES) * bed.widthM;
-      const row = Math.min(rows - 1, Math.floor(y / b));
-      const dy = Math.abs(y - (row + 0.5) * b);
-      if (dx * dx + dy * dy <= radius * radius + EPS) covered += 1;
-    }
-  }
-  return covered / (COVERAGE_SAMPLES * COVERAGE_SAMPLES);
+/**
+ * Share of the bed within `radius` of some pot centre. Every grid cell is the same a × b
+ * rectangle with its pot at the centre, and a point's nearest pot is its own cell's, so the bed's
+ * share is one cell's: the area of the rectangle inside the circle, by integrating the circle's
+ * half-height min(b/2, √(r² − x²)) over x from 0 to a/2 in closed form
+ * (∫√(r² − x²) dx = (x√(r² − x²) + r² asin(x/r)) / 2, any calculus table).
+ */
+export function gridCoverage(a: number, b: number, radius: number): number {
+  const A = a / 2;
+  const B = b / 2;
+  const r = radius;
+  const F = (x: number) => (x * Math.sqrt(Math.max(0, r * r - x * x)) + r * r * Math.asin(Math.min(1, x / r))) / 2;
+  // Up to x0 the circle is taller than the half-cell, so the whole half-height B counts.
+  const x0 = Math.min(A, r > B ? Math.sqrt(r * r - B * B) : 0);
+  const x1 = Math.min(A, r);
+  const area = B * x0 + (x1 > x0 ? F(x1) - F(x0) : 0);
+  return Math.min(1, area / (A * B));
 }
 
 /** Plan pot positions for a rectangular bed (see module note for the rules). */
@@ -102,22 +106,30 @@ export function planOllas(bed: Bed, pot: Pot, options: PlanOptions = {}): OllaPl
   const maxColumns = maxCount(bed.lengthM);
   const maxRows = maxCount(bed.widthM);
 
-  let best: { columns: number; rows: number; spread: number } | undefined;
+  const minCoverage = options.minCoverage ?? 1;
+  if (!(minCoverage >= 0.5 && minCoverage <= 1)) throw new AnalysisInputError(`minCoverage (${minCoverage}) must be between 0.5 and 1.`);
+  const wholeBed = minCoverage >= 1;
+
+  let best: { columns: number; rows: number; spread: number; covered: number } | undefined;
   for (let columns = 1; columns <= maxColumns; columns += 1) {
     const a = bed.lengthM / columns;
     for (let rows = 1; rows <= maxRows; rows += 1) {
       const b = bed.widthM / rows;
       const spread = a * a + b * b;
-      if (spread > 4 * radius * radius + EPS) continue;
       const count = columns * rows;
-      if (!best || count < best.columns * best.rows || (count === best.columns * best.rows && spread < best.spread)) {
-        best = { columns, rows, spread };
-      }
+      if (best && count > best.columns * best.rows) continue;
+      const full = spread <= 4 * radius * radius + EPS;
+      if (wholeBed && !full) continue;
+      const covered = full ? 1 : gridCoverage(bed.lengthM / columns, bed.widthM / rows, radius);
+      if (covered + EPS < minCoverage) continue;
+      const better = wholeBed ? spread < (best?.spread ?? Infinity) : covered > (best?.covered ?? -1);
+      if (!best || count < best.columns * best.rows || better) best = { columns, rows, spread, covered };
     }
   }
-  const fullCoverage = best !== undefined;
   const columns = best?.columns ?? maxColumns;
   const rows = best?.rows ?? maxRows;
+  const covered = best?.covered ?? gridCoverage(bed.lengthM / columns, bed.widthM / rows, radius);
+  const fullCoverage = covered >= 1;
   const x = bed.lengthM / columns;
   const y = bed.widthM / rows;
   const positions: Array<{ x: number; y: number }> = [];
@@ -134,7 +146,7 @@ export function planOllas(bed: Bed, pot: Pot, options: PlanOptions = {}): OllaPl
     columns,
     rows,
     fullCoverage,
-    coveredFraction: fullCoverage ? 1 : coveredFraction(bed, columns, rows, radius),
+    coveredFraction: covered,
   };
 }
 

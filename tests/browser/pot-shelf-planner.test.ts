@@ -190,6 +190,15 @@ describe('pot shelf and planner in the browser', () => {
     await page.getByText(/Rule of thumb:.*a pot wets the soil about one pot radius beyond its wall/).first().waitFor();
     const drawing = page.getByRole('img', { name: /Layout drawing of the bed/ });
     expect(await drawing.locator('circle').count()).toBe(2 * plan.count);
+    // Letting the corners stay dry asks for fewer pots (planOllas with minCoverage 0.8).
+    const middle = planOllas({ lengthM: 2, widthM: 1 }, { widestDiameterM: 0.3 }, { minCoverage: 0.8 });
+    expect(middle.count).toBeLessThan(plan.count);
+    await page.getByRole('radio', { name: /Most of it/ }).check();
+    await page.locator('#bed-pot-count').filter({ hasText: new RegExp(`^${middle.count} pots$`) }).waitFor();
+    expect(await drawing.locator('circle').count()).toBe(2 * middle.count);
+    await page.getByText(/Their wetted zones reach \d+% of the bed/).waitFor();
+    await page.getByRole('radio', { name: /All of it/ }).check();
+    await page.locator('#bed-pot-count').filter({ hasText: new RegExp(`^${plan.count} pots$`) }).waitFor();
     await page.getByLabel('Bed width (m)').fill('0.2');
     await page.getByText('A pot 300 mm wide does not fit inside this bed.').waitFor();
     await page.getByLabel('Bed width (m)').fill('1');

@@ -4,7 +4,7 @@
 import fc from 'fast-check';
 import { describe, expect, it, test } from 'vitest';
 import { AnalysisInputError } from '@shared/analysis/paired';
-import { planOllas, refillIntervalDays, wettedAreaM2, wettedRadiusM } from '@shared/agronomy/olla-layout';
+import { gridCoverage, planOllas, refillIntervalDays, wettedAreaM2, wettedRadiusM } from '@shared/agronomy/olla-layout';
 
 function distance(a: { x: number; y: number }, b: { x: number; y: number }): number {
   return Math.hypot(a.x - b.x, a.y - b.y);
@@ -160,5 +160,73 @@ describe('refillIntervalDays', () => {
     expect(() => refillIntervalDays({ capacityL: 10 })).toThrow(AnalysisInputError);
     expect(() => refillIntervalDays({ capacityL: 10, cropNeedMmPerDay: 5 })).toThrow(AnalysisInputError);
     expect(() => refillIntervalDays({ capacityL: 0, seepageLPerDay: 1 })).toThrow(AnalysisInputError);
+  });
+});
+
+describe('gridCoverage: share of a cell within the wetted radius of its centre (plane geometry)', () => {
+  it('matches the textbook cases', () => {
+    // A circle inscribed in a square covers π/4 of it (area πr² over (2r)²).
+    expect(gridCoverage(1, 1, 0.5)).toBeCloseTo(Math.PI / 4, 12);
+    // A circle through the corners covers the square.
+    expect(gridCoverage(1, 1, Math.SQRT1_2)).toBe(1);
+    // The same circle in a 2 × 1 rectangle: π/4 of area 2.
+    expect(gridCoverage(2, 1, 0.5)).toBeCloseTo(Math.PI / 8, 12);
+    // A circle smaller than the cell: its whole area πr² over the cell's.
+    expect(gridCoverage(3, 2, 0.4)).toBeCloseTo((Math.PI * 0.16) / 6, 12);
+  });
+
+  test('agrees with counting points on a fine lattice', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.1, max: 2, noNaN: true }), fc.double({ min: 0.1, max: 2, noNaN: true }), fc.double({ min: 0.05, max: 1.5, noNaN: true }), (a, b, r) => {
+        const n = 400;
+        let inside = 0;
+        for (let i = 0; i < n; i++) {
+          for (let j = 0; j < n; j++) {
+            const x = ((i + 0.5) / n - 0.5) * a;
+            const y = ((j + 0.5) / n - 0.5) * b;
+            if (x * x + y * y <= r * r) inside++;
+          }
+        }
+        expect(Math.abs(gridCoverage(a, b, r) - inside / (n * n))).toBeLessThan(0.01);
+      }),
+      { numRuns: 30 },
+    );
+  });
+});
+
+describe('planOllas with minCoverage (fewer pots when corners may stay dry)', () => {
+  // A 6 × 3 ft bed (1.83 × 0.91 m) and 12-inch (0.305 m) pots, the planner's US default.
+  const bed = { lengthM: 6 * 0.3048, widthM: 3 * 0.3048 };
+  const pot = { widestDiameterM: 0.3048 };
+
+  it('the whole bed takes 10 pots; 90 % takes 8; 80 % takes 6', () => {
+    // Whole bed: 5 × 2 cells of 1.2 × 1.5 ft, half-diagonal 0.96 ft within the 1 ft wetted radius;
+    // 4 × 2 (1.5 × 1.5 ft, half-diagonal 1.06 ft) leaves the corners dry.
+    expect(planOllas(bed, pot).count).toBe(10);
+    const most = planOllas(bed, pot, { minCoverage: 0.9 });
+    expect([most.columns, most.rows]).toEqual([4, 2]);
+    expect(most.fullCoverage).toBe(false);
+    expect(most.coveredFraction).toBeGreaterThanOrEqual(0.9);
+    const middle = planOllas(bed, pot, { minCoverage: 0.8 });
+    expect([middle.columns, middle.rows]).toEqual([3, 2]);
+    expect(middle.coveredFraction).toBeGreaterThanOrEqual(0.8);
+    expect(middle.coveredFraction).toBeCloseTo(gridCoverage(bed.lengthM / 3, bed.widthM / 2, 0.3048), 12);
+  });
+
+  test('never more pots than the whole-bed plan, and always at least the share asked for when the whole-bed plan covers', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.4, max: 6, noNaN: true }), fc.double({ min: 0.4, max: 3, noNaN: true }), fc.double({ min: 0.5, max: 1, noNaN: true }), (l, w, c) => {
+        const whole = planOllas({ lengthM: l, widthM: w }, { widestDiameterM: 0.3 });
+        const part = planOllas({ lengthM: l, widthM: w }, { widestDiameterM: 0.3 }, { minCoverage: c });
+        expect(part.count).toBeLessThanOrEqual(whole.count);
+        if (whole.fullCoverage) expect(part.coveredFraction).toBeGreaterThanOrEqual(c - 1e-9);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('refuses a share outside 0.5–1', () => {
+    expect(() => planOllas(bed, pot, { minCoverage: 0.3 })).toThrow(AnalysisInputError);
+    expect(() => planOllas(bed, pot, { minCoverage: 1.2 })).toThrow(AnalysisInputError);
   });
 });

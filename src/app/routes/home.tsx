@@ -102,6 +102,16 @@ function GardensAndTrials() {
 export function HomePage() {
   const { t } = useTranslation('home');
   const user = useCurrentUser();
+  const gardens = useGardens();
+  const trials = useTrials();
+  const cohorts = useCohorts();
+  const cohortsFirst = gardens.data?.length === 0 && trials.data?.length === 0 && (cohorts.data?.length ?? 0) > 0;
+  const gettingStarted = (
+    <Card>
+      <h2>{t(($) => $.gettingStarted.title)}</h2>
+      <p className="mt-2 text-ink-muted">{t(($) => $.gettingStarted.body)}</p>
+    </Card>
+  );
   return (
     <div className="space-y-6">
       <div>
@@ -109,16 +119,22 @@ export function HomePage() {
         <p className="mt-1 text-ink-muted">{t(($) => $.intro)}</p>
       </div>
       <FrostWarnings />
-      <GardensAndTrials />
-      <div className="grid gap-6 lg:grid-cols-2">
-        <Card>
-          <h2>{t(($) => $.gettingStarted.title)}</h2>
-          <p className="mt-2 text-ink-muted">
-            {t(($) => $.gettingStarted.body)}
-          </p>
-        </Card>
-        <YourCohortsCard />
-      </div>
+      {cohortsFirst ? (
+        // A student or lead with no garden of their own comes here for a cohort: that comes first.
+        <>
+          <YourCohortsCard />
+          <GardensAndTrials />
+          {gettingStarted}
+        </>
+      ) : (
+        <>
+          <GardensAndTrials />
+          <div className="grid gap-6 lg:grid-cols-2">
+            {gettingStarted}
+            <YourCohortsCard />
+          </div>
+        </>
+      )}
     </div>
   );
 }

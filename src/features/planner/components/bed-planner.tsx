@@ -4,6 +4,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { useTranslation } from 'react-i18next';
 import { z } from 'zod';
 import { planOllas, type Bed, type OllaPlan } from '@shared/agronomy/olla-layout';
+import { Choice, ChoiceGroup } from '@/components/ui/choice-group';
 import { InputField } from '@/components/ui/field';
 import { useUnits } from '@/lib/units';
 import { BedDrawing, MAX_DRAWN_POTS } from './bed-drawing';
@@ -50,7 +51,11 @@ export function bedSchema(units: Units, t: TFunction<'planner'>) {
     });
 }
 
-type BedValues = z.input<ReturnType<typeof bedSchema>>;
+type BedValues = z.input<ReturnType<typeof bedSchema>> & { coverage: Coverage };
+
+/** How much of the bed the wetted zones must reach (planOllas `minCoverage`). */
+const coverages = { whole: 1, most: 0.9, middle: 0.8 } as const;
+type Coverage = keyof typeof coverages;
 
 function describe(bed: Bed, plan: OllaPlan, units: Units, t: TFunction<'planner'>): string {
   const lenDigits = units.system === 'us' ? 1 : 2;
@@ -72,20 +77,21 @@ export function BedPlanner() {
   const { t } = useTranslation('planner');
   const schema = useMemo(() => bedSchema(units, t), [units, t]);
   const defaults = useMemo<BedValues>(
-    () => (units.system === 'us' ? { length: '6', width: '3', diameter: '12' } : { length: '2', width: '1', diameter: numberText(300, 0) }),
+    () => ({ ...(units.system === 'us' ? { length: '6', width: '3', diameter: '12' } : { length: '2', width: '1', diameter: numberText(300, 0) }), coverage: 'whole' as Coverage }),
     [units.system],
   );
   const { register, control } = useForm<BedValues>({ defaultValues: defaults });
   const values = useWatch({ control });
   const parsed = useMemo(() => schema.safeParse({ ...defaults, ...values }), [schema, defaults, values]);
+  const coverage: Coverage = values.coverage && values.coverage in coverages ? values.coverage : 'whole';
   const result = useMemo(() => {
     if (!parsed.success) return null;
     try {
-      return { ...parsed.data, plan: planOllas(parsed.data.bed, { widestDiameterM: parsed.data.widestDiameterM }) };
+      return { ...parsed.data, plan: planOllas(parsed.data.bed, { widestDiameterM: parsed.data.widestDiameterM }, { minCoverage: coverages[coverage] }) };
     } catch (err) {
       return { error: err instanceof Error ? err.message : t(($) => $.bed.cannotPlan) };
     }
-  }, [parsed, t]);
+  }, [parsed, t, coverage]);
   const plan = result && 'plan' in result ? result.plan : null;
   // Messages come from the live parse of the whole form, so a rule across fields shows too.
   const e = fieldMessages(parsed);
@@ -110,6 +116,11 @@ export function BedPlanner() {
             {...register('diameter')}
             error={e.diameter}
           />
+          <ChoiceGroup legend={t(($) => $.bed.coverage)}>
+            {(Object.keys(coverages) as Coverage[]).map((c) => (
+              <Choice key={c} value={c} label={t(($) => $.bed.coverageChoice[c])} hint={t(($) => $.bed.coverageHint[c])} {...register('coverage')} />
+            ))}
+          </ChoiceGroup>
         </form>
         <div className="min-w-0 space-y-3">
           <div aria-live="polite">
@@ -129,7 +140,9 @@ export function BedPlanner() {
                 <p>
                   {plan.fullCoverage
                     ? t(($) => $.bed.fullCoverage)
-                    : t(($) => $.bed.partCoverage, { pct: formatNumber(plan.coveredFraction * 100, 0) })}
+                    : plan.coveredFraction + 1e-9 >= coverages[coverage]
+                      ? t(($) => $.bed.coveredShare, { pct: formatNumber(Math.floor(plan.coveredFraction * 100), 0) })
+                      : t(($) => $.bed.partCoverage, { pct: formatNumber(plan.coveredFraction * 100, 0) })}
                 </p>
               </>
             ) : result && 'error' in result ? (
