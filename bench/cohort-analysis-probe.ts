@@ -8,8 +8,10 @@
  *     first, as the route does) into bench/tmp/cohort-probe/inputs.json;
  *   npx tsx bench/cohort-analysis-probe.ts --against <git rev> [--rounds 30]
  *     extracts <rev>'s shared/ into bench/tmp/cohort-probe/<rev>/, checks that both give the same
- *     JSON, byte for byte, for 8 option sets, then times both in one process, interleaved (the order
- *     alternates each round), and prints min / median / p90 per step.
+ *     JSON, byte for byte, for 8 option sets (when <rev> predates a trim of the response: its answer
+ *     cut down to the current schema, and the dropped forest fields equal to those forestTrials joins
+ *     from the trial rows), then times both in one process, interleaved (the order alternates each
+ *     round), and prints min / median / p90 per step.
  *
  * For a profile: `node --cpu-prof` on a bundle of this file (esbuild --bundle), so frames keep names.
  */
@@ -90,11 +92,32 @@ async function compare(rev: string, rounds: number) {
   const optionSets: CohortEffects.CohortOptions[] = [];
   for (const method of ['DL', 'REML'] as const)
     for (const includeSinglePairs of [false, true]) for (const excludeFlagged of [false, true]) optionSets.push({ method, confidence: 0.95, includeSinglePairs, excludeFlagged });
+  const { cohortResultsSchema } = await import('../shared/schemas/cohort-results');
+  const { forestTrials } = await import('../shared/charts/cohort-charts');
+  let projected = 0;
   for (const options of optionSets) {
-    const [a, b] = impls.map(([, m]) => JSON.stringify(m.analyseCohort({ ...input, options })));
-    if (a !== b) throw new Error(`Different answers for ${JSON.stringify(options)}`);
+    const [oldResult, newResult] = impls.map(([, m]) => m.analyseCohort({ ...input, options }));
+    if (JSON.stringify(oldResult) === JSON.stringify(newResult)) continue;
+    // A trimmed response (fields dropped from the schema): the old answer, cut down to today's schema (zod drops
+    // unknown keys), must equal the new one byte for byte, and every dropped forest field must come back,
+    // identical, from the trial rows (forestTrials).
+    const cut = (r: unknown) => JSON.stringify(cohortResultsSchema.parse(r));
+    if (cut(oldResult) !== cut(newResult)) throw new Error(`Different answers for ${JSON.stringify(options)}`);
+    const old = oldResult as unknown as { effects: Record<string, { forest: Record<string, unknown>[] }> };
+    for (const key of ['waterLogRatio', 'wueLogRatio', 'harvestPerPlantDiff'] as const) {
+      const joined = forestTrials(newResult!, key);
+      old.effects[key]!.forest.forEach((f, i) => {
+        for (const field of ['pseudonym', 'estimate', 'variance', 'pairs', 'source', 'flagged'] as const) {
+          if (field in f && f[field] !== joined[i]![field]) throw new Error(`forest ${key}[${i}].${field}: ${String(f[field])} ≠ ${String(joined[i]![field])} for ${JSON.stringify(options)}`);
+        }
+      });
+    }
+    projected += 1;
   }
-  console.log(`same JSON from ${sha} and the working tree for ${optionSets.length} option sets (${input.trials.length} trials)`);
+  console.log(
+    `same JSON from ${sha} and the working tree for ${optionSets.length} option sets (${input.trials.length} trials)` +
+      (projected ? `; ${projected} of them after cutting ${sha}'s answer down to the current schema (dropped forest fields equal to the trial rows')` : ''),
+  );
   const times = new Map<string, number[]>();
   const record = (key: string, ms: number) => times.set(key, [...(times.get(key) ?? []), ms]);
   for (let r = 0; r < rounds; r += 1) {

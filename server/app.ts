@@ -4,7 +4,7 @@ import pg from 'pg';
 import { pinoHttp } from 'pino-http';
 import type { DataSource } from 'typeorm';
 import { requireCsrf } from './auth/csrf';
-import { configurePassport } from './auth/passport';
+import { configurePassport, sessionUserJoin } from './auth/passport';
 import { sessionMiddleware } from './auth/session';
 import type { Env } from './config/env';
 import type { AppContext } from './context';
@@ -126,7 +126,10 @@ export function createApp(deps: AppDeps) {
   // asynchronously: a crash can lose the last ~0.6 s of them (someone signs in again), none waits for a WAL flush.
   const sessionPool = new pg.Pool({ connectionString: dataSource.options.type === 'postgres' ? (dataSource.options.url as string) : undefined, max: 4, options: '-c synchronous_commit=off' });
   sessionPool.on('error', (err) => logger.warn({ err: err.message }, 'session pool error'));
-  api.use(sessionMiddleware({ pool: sessionPool, secret: env.SESSION_SECRET, secureCookies: env.NODE_ENV === 'production' && env.TRUST_PROXY }));
+  // The store reads the signed-in user's row with the session row (one statement); passport takes it from there.
+  api.use(
+    sessionMiddleware({ pool: sessionPool, secret: env.SESSION_SECRET, secureCookies: env.NODE_ENV === 'production' && env.TRUST_PROXY, user: sessionUserJoin(dataSource) }),
+  );
   api.use(ctx.passport.session());
   api.use(requireCsrf);
   const specs = buildRouteSpecs(ctx, deps.authLimits);

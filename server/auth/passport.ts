@@ -3,6 +3,7 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import { UserEntity } from '../entities/user.entity';
 import { dummyVerify, verifyPassword } from './passwords';
+import { takeUserReadWithSession, type SessionUserJoin } from './session';
 
 /** What the session remembers about the signed-in user. */
 interface SessionUser {
@@ -19,7 +20,32 @@ declare global {
   }
 }
 
+const quoteIdent = (name: string) => `"${name.replace(/"/g, '""')}"`;
+
+/**
+ * How the session store reads the users row with the session row (SessionWithUserStore): every
+ * column of UserEntity, aliased `user.<property>`, turned back into the same entity TypeORM's
+ * `findOneBy` gives (the driver's own hydration per column).
+ */
+export function sessionUserJoin(dataSource: DataSource): SessionUserJoin & { hydrate: (row: Record<string, unknown>) => UserEntity } {
+  const meta = dataSource.getMetadata(UserEntity);
+  const alias = (propertyPath: string) => `user.${propertyPath}`;
+  return {
+    usersTable: meta.schema ? `${quoteIdent(meta.schema)}.${quoteIdent(meta.tableName)}` : quoteIdent(meta.tableName),
+    select: meta.columns.map((c) => `u.${quoteIdent(c.databaseName)} AS ${quoteIdent(alias(c.propertyPath))}`).join(', '),
+    hydrate: (row) => {
+      const user = meta.create(undefined, { fromDeserializer: true }) as UserEntity;
+      for (const c of meta.columns) {
+        const value = row[alias(c.propertyPath)];
+        if (value !== undefined) c.setEntityValue(user, dataSource.driver.prepareHydratedValue(value, c));
+      }
+      return user;
+    },
+  };
+}
+
 export function configurePassport(dataSource: DataSource) {
+  const userJoin = sessionUserJoin(dataSource);
   const users = dataSource.getRepository(UserEntity);
   const instance = new passport.Passport();
 
@@ -47,8 +73,10 @@ export function configurePassport(dataSource: DataSource) {
   });
 
   instance.deserializeUser((value: SessionUser, done) => {
-    users
-      .findOneBy({ id: value.id })
+    // The session store usually read the row already, with the session (one round trip); if not, look it up.
+    const read = takeUserReadWithSession(value);
+    const found = read === undefined ? users.findOneBy({ id: value.id }) : Promise.resolve(read && userJoin.hydrate(read));
+    found
       .then((user) => {
         // Disabled accounts and sessions from before a password change are signed out.
         if (!user || user.disabledAt || user.sessionsValidAfter.getTime() > value.at) return done(null, false);

@@ -58,14 +58,87 @@ export class ThrottledTouchStore extends PgStore {
 }
 
 /**
+ * The users row each session read brought along, keyed by the session's `passport.user` value
+ * (the object passport hands to deserializeUser), taken once. A WeakMap: nothing outlives the
+ * request's session object. `null`: the session names a user who does not exist.
+ */
+const usersReadWithSession = new WeakMap<object, Record<string, unknown> | null>();
+
+/** The users row read in the same statement as this session value, if the store read one (then forgets it). */
+export function takeUserReadWithSession(sessionUser: unknown): Record<string, unknown> | null | undefined {
+  if (typeof sessionUser !== 'object' || sessionUser === null) return undefined;
+  const row = usersReadWithSession.get(sessionUser);
+  usersReadWithSession.delete(sessionUser);
+  return row;
+}
+
+/** How the store joins the signed-in user's row: the users table and the select list for it (table alias `u`). */
+export interface SessionUserJoin {
+  usersTable: string;
+  /** Select expressions over `u`, e.g. `u."id" AS "user.id"`; read back by the caller. */
+  select: string;
+}
+
+const UUID_RE_SQL = `'^[0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{12}$'`;
+
+/**
+ * ThrottledTouchStore whose `get` also reads the signed-in user's row, in the same statement, so a
+ * signed-in request costs one round trip before the route instead of two (session row, then
+ * passport's deserializeUser looking up the user; benchmark, bench/FINDINGS.md §1). The row is
+ * read fresh with every request's session, as before: a disabled account, a password change or a
+ * role change shows on the next request. passport's deserializeUser takes it with
+ * `takeUserReadWithSession` and falls back to its own query when there is none.
+ *
+ * Otherwise `get` behaves as connect-pg-simple's: expired rows are not returned, an unparseable
+ * session is destroyed. (Its prune timer starts on the first touch or save rather than the first
+ * read: connect-pg-simple keeps that timer private.)
+ */
+export class SessionWithUserStore extends ThrottledTouchStore {
+  private readonly getSql: string;
+  private readonly pool: pg.Pool;
+
+  constructor(options: ConstructorParameters<typeof PgStore>[0] & { pool: pg.Pool }, join: SessionUserJoin, intervalMs = TOUCH_INTERVAL_MS, now: () => number = Date.now) {
+    super(options, intervalMs, now);
+    this.pool = options.pool;
+    const table = `"${(options.tableName ?? 'session').replace(/"/g, '""')}"`;
+    const userId = `s.sess #>> '{passport,user,id}'`;
+    this.getSql = `SELECT s.sess, u.id IS NOT NULL AS "userFound", ${join.select}
+                     FROM ${table} s
+                     LEFT JOIN ${join.usersTable} u ON u.id = CASE WHEN ${userId} ~ ${UUID_RE_SQL} THEN (${userId})::uuid END
+                    WHERE s.sid = $1 AND s.expire >= to_timestamp($2)`;
+  }
+
+  override get(sid: string, fn: (err: unknown, session?: session.SessionData | null) => void): void {
+    const onRow = (row: Record<string, unknown> | undefined) => {
+      if (!row) return fn(null);
+      let sess: session.SessionData & { passport?: { user?: unknown } };
+      try {
+        sess = (typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess) as typeof sess;
+      } catch {
+        return this.destroy(sid, fn);
+      }
+      const sessionUser = sess?.passport?.user;
+      if (typeof sessionUser === 'object' && sessionUser !== null) usersReadWithSession.set(sessionUser, row.userFound ? row : null);
+      fn(null, sess);
+    };
+    // Callbacks run outside the promise (as connect-pg-simple does), so a throw in them is not swallowed.
+    this.pool.query<Record<string, unknown>>(this.getSql, [sid, Math.ceil(Date.now() / 1000)]).then(
+      (res) => process.nextTick(onRow, res.rows[0]),
+      (err: unknown) => process.nextTick(fn, err),
+    );
+  }
+}
+
+/**
  * Sessions live in PostgreSQL (table `session`, created by a migration), so a restart keeps
  * people signed in and several app instances share them.
  */
-export function sessionMiddleware(opts: { pool: pg.Pool; secret: string; secureCookies: boolean }) {
+export function sessionMiddleware(opts: { pool: pg.Pool; secret: string; secureCookies: boolean; user?: SessionUserJoin }) {
+  const storeOptions = { pool: opts.pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 };
   return session({
     name: SESSION_COOKIE,
     secret: opts.secret,
-    store: new ThrottledTouchStore({ pool: opts.pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: opts.user ? new SessionWithUserStore(storeOptions, opts.user) : new ThrottledTouchStore(storeOptions),
     resave: false,
     saveUninitialized: false,
     rolling: true,

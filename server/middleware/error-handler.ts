@@ -4,14 +4,15 @@ import { AppError } from '../lib/app-error';
 import type { Logger } from '../lib/logger';
 
 /** PostgreSQL error codes that mean "the database is not reachable right now". */
-const unavailableCodes = new Set(['57P01', '57P02', '57P03', '08000', '08003', '08006', '08001', 'ECONNREFUSED', 'ECONNRESET']);
+const unavailableCodes = new Set(['57P01', '57P02', '57P03', '08000', '08003', '08006', '08001', 'ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ECONNABORTED', 'ENOTCONN']);
 
 function isDatabaseUnavailable(err: unknown): boolean {
   const e = err as { code?: string; message?: string; driverError?: { code?: string } } | null;
   if (!e) return false;
   const code = e.code ?? e.driverError?.code;
   if (code && unavailableCodes.has(code)) return true;
-  return /Connection terminated|connect ECONNREFUSED|the database system is (starting up|shutting down)/i.test(e.message ?? '');
+  // pg's own words when a pooled client's socket died under it (no code on these).
+  return /Connection terminated|connect ECONNREFUSED|the database system is (starting up|shutting down)|is not queryable/i.test(e.message ?? '');
 }
 
 /**

@@ -3,7 +3,7 @@ import { createPlotInputSchema, updatePlotInputSchema } from '@shared/schemas/pl
 import { createTrialInputSchema, randomiseInputSchema, shareTrialInputSchema, trialStatusInputSchema, updateTrialInputSchema } from '@shared/schemas/trials';
 import type { AppContext } from '../context';
 import { access } from '../http/access';
-import { handle, route, type RouteSpec } from '../http/route';
+import { handle, respondAfterAccess, route, type RouteSpec } from '../http/route';
 import { validate } from '../middleware/validate';
 import { analysisService } from '../services/analysis.service';
 import { trialsService } from '../services/trials.service';
@@ -62,8 +62,9 @@ export function trialRoutes(ctx: AppContext): RouteSpec[] {
     route(
       'get',
       '/trials/:trialId/analysis',
-      access.reader('trial', 'trialId'),
-      handle(async (req, res) => res.json({ data: await analysis.forTrial(id(req.params.trialId)) })),
+      // The aggregates start while the access check runs; nothing is sent unless it passes.
+      access.reader('trial', 'trialId', { concurrent: true }),
+      respondAfterAccess((req) => analysis.forTrial(id(req.params.trialId))),
     ),
     route('get', '/trials/:trialId/audit', access.owner('trial', 'trialId'), handle(async (req, res) => res.json({ data: await svc.auditTrail(id(req.params.trialId)) }))),
     route('get', '/trials/:trialId/plots', access.reader('trial', 'trialId'), handle(async (req, res) => res.json({ data: await svc.listPlots(id(req.params.trialId)) }))),

@@ -758,16 +758,10 @@ function forestRows(effect: EffectKey, entries: readonly PoolEntry[], fit: Rando
   return entries.map((e, i) => {
     const half = z * Math.sqrt(e.variance);
     const ci: [number, number] = [e.effect - half, e.effect + half];
+    // The trial's own estimate, variance, pairs, source and flags are in its row of `trials`, not repeated here.
     return {
       trialId: e.trialId,
-      pseudonym: e.pseudonym,
-      estimate: e.effect,
-      variance: e.variance,
-      ci,
       weightPercent: fit ? fit.weightsPercent[i]! : entries.length === 1 ? 100 : null,
-      pairs: e.pairs,
-      source: e.source,
-      flagged: e.flagged,
       display: { estimate: spec.display(e.effect), ci: displayInterval(spec, ci) },
     };
   });
@@ -796,9 +790,7 @@ export function effectResult(
       options,
     ).map((r) => ({
       omittedTrialId: main[r.omitted]!.trialId,
-      pseudonym: main[r.omitted]!.pseudonym,
       estimate: r.estimate,
-      ci: r.ci,
       tau2: r.tau2,
       i2: r.i2,
       display: { estimate: spec.display(r.estimate), ci: displayInterval(spec, r.ci) },

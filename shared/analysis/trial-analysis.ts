@@ -213,12 +213,14 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     notices.push(params ? { key, params } : { key });
     warnings.push(enT(`analysis.warnings.${key}`, params));
   };
-  const plots: PlotSummary[] = input.plots.map((p) => ({
-    ...p,
-    depthMm: depthMm(p.waterL, p.areaM2),
-    harvestKgPerM2: p.harvestKg / p.areaM2,
-    wueKgPerM3: safeWue(p.harvestKg, p.waterL),
-  }));
+  // Object.assign rather than a spread: the same objects, without V8's slow object spread (see et0ForDay).
+  const plots: PlotSummary[] = input.plots.map((p) =>
+    Object.assign({}, p, {
+      depthMm: depthMm(p.waterL, p.areaM2),
+      harvestKgPerM2: p.harvestKg / p.areaM2,
+      wueKgPerM3: safeWue(p.harvestKg, p.waterL),
+    }),
+  );
   if (plots.some((p) => p.treatment === null)) warn('unassigned');
   if (plots.length && plots.every((p) => p.harvests === 0)) warn('noHarvest');
 

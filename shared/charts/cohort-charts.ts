@@ -5,7 +5,7 @@
  *
  * Trials appear by their member's pseudonym and crop only (the results never carry names).
  */
-import type { CohortResults, EffectKey, EffectResult } from '../schemas/cohort-results';
+import type { CohortResults, EffectKey, EffectResult, ForestRow } from '../schemas/cohort-results';
 import { enT, type Translate } from '../i18n/translate';
 import { cropIds, type Crop } from '../schemas/trials';
 import { toDisplay, unitLabel } from '../units';
@@ -59,6 +59,35 @@ export function trialLabels(results: Pick<CohortResults, 'trials'>, tr: Translat
     out[t.trialId] = (counts.get(b) ?? 1) > 1 ? `${b} (${n})` : b;
   }
   return out;
+}
+
+/** A forest row with what the trial's own row says about it: who, its effect on its own scale, pairs, source, flags. */
+export interface ForestTrial extends ForestRow {
+  pseudonym: string;
+  crop: string;
+  /** The trial's effect and the variance it was pooled with (own scale). */
+  estimate: number;
+  variance: number;
+  pairs: number;
+  source: 'pairs' | 'season-totals';
+  /** The trial has at least one quality flag. */
+  flagged: boolean;
+}
+
+/**
+ * The forest rows of one effect joined with their trials' rows (the response sends each trial's
+ * pseudonym, effect, variance, pairs, source and flags once, in `trials`). In the forest's order.
+ */
+export function forestTrials(results: Pick<CohortResults, 'trials' | 'effects'>, effect: EffectKey): ForestTrial[] {
+  const byId = new Map(results.trials.map((t) => [t.trialId, t]));
+  return results.effects[effect].forest.map((f) => {
+    const t = byId.get(f.trialId);
+    const e = t?.effects[effect];
+    if (!t || !e || e.estimate === null || e.variance === null || e.source === null) {
+      throw new Error(`Forest row ${f.trialId} has no pooled effect in the trial rows.`);
+    }
+    return { ...f, pseudonym: t.pseudonym, crop: t.crop, estimate: e.estimate, variance: e.variance, pairs: e.pairs, source: e.source, flagged: t.flags.length > 0 };
+  });
 }
 
 export interface EffectAxis {
@@ -146,7 +175,7 @@ export function forestPlotSpec(results: CohortResults, effect: EffectKey, o: For
   const confidence = Math.round(results.options.confidence * 100);
   const c = axis.convert;
 
-  const trials = e.forest
+  const trials = forestTrials(results, effect)
     .map((f) => ({
       row: labels[f.trialId] ?? f.pseudonym,
       estimate: c(f.display.estimate),

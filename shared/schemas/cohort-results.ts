@@ -169,17 +169,18 @@ export const pooledEstimateSchema = z.object({
 });
 export type PooledEstimate = z.infer<typeof pooledEstimateSchema>;
 
+/**
+ * One pooled trial of the forest plot: what pooling adds to the trial's own effect. The rest is in
+ * the trial's row (`trials[]`, same `trialId`), not repeated here: its pseudonym, `effects[effect]`
+ * (estimate and variance on the effect's own scale — the variance used for pooling, imputed for a
+ * single-pair trial —, pairs, source) and its flags (`flagged` = at least one flag).
+ * `forestTrials()` (shared/charts/cohort-charts.ts) joins the two.
+ */
 export const forestRowSchema = z.object({
   trialId: z.uuid(),
-  pseudonym: z.string(),
-  estimate: z.number(),
-  variance: z.number(),
-  ci: interval,
   /** Random-effects weight, percent (null when nothing could be pooled). */
   weightPercent: z.number().nullable(),
-  pairs: z.number(),
-  source: z.enum(['pairs', 'season-totals']),
-  flagged: z.boolean(),
+  /** The trial's estimate and its confidence interval (estimate ± z·√variance) on the reader-facing scale. */
   display: displaySchema.omit({ predictionInterval: true }),
 });
 export type ForestRow = z.infer<typeof forestRowSchema>;
@@ -208,15 +209,18 @@ export const subgroupAnalysisSchema = z.object({
 });
 export type SubgroupAnalysis = z.infer<typeof subgroupAnalysisSchema>;
 
+/** The pooled estimate without one trial (its pseudonym and crop are in the trial's row, `trials[]`, same id). */
 export const leaveOneOutRowSchema = z.object({
   omittedTrialId: z.uuid(),
-  pseudonym: z.string(),
+  /** On the effect's own scale. */
   estimate: z.number(),
-  ci: interval,
   tau2: z.number(),
+  /** Percent. */
   i2: z.number(),
+  /** The estimate and its confidence interval on the reader-facing scale. */
   display: displaySchema.omit({ predictionInterval: true }),
 });
+export type LeaveOneOutRow = z.infer<typeof leaveOneOutRowSchema>;
 
 export const effectResultSchema = z.object({
   effect: effectKeySchema,

@@ -123,7 +123,14 @@ describe('GET /api/trials/:trialId/analysis', () => {
     const { a, trial } = await setUp(2);
     const lead = new ApiAgent(t.app);
     await lead.signUp({ email: uniqueEmail('lead'), role: 'educator' });
-    expect((await lead.get(`/api/trials/${trial.id}/analysis`)).status).toBe(404);
+    // The aggregates run while the access check does (access.reader concurrent): an outsider still gets
+    // the same 404 as for a trial that does not exist, and nothing of the trial.
+    const outsider = await lead.get(`/api/trials/${trial.id}/analysis`);
+    const missing = await lead.get(`/api/trials/00000000-0000-4000-8000-000000000000/analysis`);
+    expect(outsider.status).toBe(404);
+    expect(outsider.body.data).toBeUndefined();
+    expect(outsider.body).toEqual(missing.body);
+    expect((await new ApiAgent(t.app).get(`/api/trials/${trial.id}/analysis`)).status).toBe(401);
     const cohort = (await lead.post('/api/cohorts', { name: 'Readers' })).body.data;
     await a.post('/api/cohorts/join', { code: cohort.joinCode });
     await a.post(`/api/trials/${trial.id}/shares`, { cohortId: cohort.id });

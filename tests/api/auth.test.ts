@@ -1,5 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sessionUserJoin } from '../../server/auth/passport';
+import { UserEntity } from '../../server/entities/user.entity';
 import { ApiAgent, startTestApp, uniqueEmail, type TestApp } from '../helpers/test-app';
 
 let t: TestApp;
@@ -250,6 +252,32 @@ describe('admin', () => {
     expect(list.status).toBe(200);
     expect(list.body.data).toHaveLength(1);
     expect(list.body.meta.total).toBe(1);
+  });
+
+  it('a role change takes effect on the account\'s next request, with the session it already has', async () => {
+    const admin = await makeAdmin();
+    const g = new ApiAgent(t.app);
+    const user = await g.signUp({ email: uniqueEmail('teacher') });
+    // Creating a cohort is for educators: the role check answers before the body is validated.
+    expect((await g.post('/api/cohorts', {})).status).toBe(403);
+    expect((await admin.patch(`/api/admin/users/${user.id}`, { role: 'educator' })).status).toBe(200);
+    expect((await g.get('/api/account')).body.data.role).toBe('educator');
+    expect((await g.post('/api/cohorts', {})).status).toBe(400);
+    expect((await admin.patch(`/api/admin/users/${user.id}`, { role: 'grower' })).status).toBe(200);
+    expect((await g.post('/api/cohorts', {})).status).toBe(403);
+  });
+
+  it('reads the signed-in account with the session as the same entity a lookup by id gives', async () => {
+    const g = new ApiAgent(t.app);
+    const user = await g.signUp({ email: uniqueEmail() });
+    await t.ds.query(`UPDATE users SET email_verified_at = now(), disabled_at = NULL WHERE id = $1`, [user.id]);
+    const join = sessionUserJoin(t.ds);
+    const [row] = (await t.ds.query(`SELECT ${join.select} FROM ${join.usersTable} u WHERE u.id = $1`, [user.id])) as Record<string, unknown>[];
+    const viaJoin = join.hydrate(row!);
+    const viaLookup = await t.ds.getRepository(UserEntity).findOneByOrFail({ id: user.id });
+    expect(viaJoin).toBeInstanceOf(UserEntity);
+    expect(viaJoin).toStrictEqual(viaLookup);
+    expect(viaJoin.sessionsValidAfter.getTime()).toBe(viaLookup.sessionsValidAfter.getTime());
   });
 
   it('shows the development outbox and system health', async () => {

@@ -6,6 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { logRiskRatio } from '@shared/analysis/meta';
+import { forestTrials } from '@shared/charts/cohort-charts';
 import { cohortResultsSchema, type CohortResults } from '@shared/schemas/cohort-results';
 import { LITRES_PER_US_GALLON } from '@shared/units';
 import { makePairedTrial } from '../helpers/notebook-fixtures';
@@ -370,7 +371,7 @@ describe('cohort results: privacy, flags, exclusions, withdrawal, single pairs',
     // excludeFlagged leaves them out of the main estimate; the sensitivity block shows both.
     const w = r.effects.waterLogRatio;
     expect(
-      w.forest
+      forestTrials(r, 'waterLogRatio')
         .filter((f) => f.flagged)
         .map((f) => f.trialId)
         .sort(),
@@ -383,9 +384,10 @@ describe('cohort results: privacy, flags, exclusions, withdrawal, single pairs',
 
   it('lets a single-pair trial in only when the lead opts in', async () => {
     const off = (await results(lead.a, cohortId)).effects.waterLogRatio;
-    const on = (await results(lead.a, cohortId, '?includeSinglePairs=true')).effects.waterLogRatio;
+    const withSingles = await results(lead.a, cohortId, '?includeSinglePairs=true');
+    const on = withSingles.effects.waterLogRatio;
     expect(on.k).toBe(off.k + 1);
-    const row = on.forest.find((f) => f.trialId === trials.q4)!;
+    const row = forestTrials(withSingles, 'waterLogRatio').find((f) => f.trialId === trials.q4)!;
     expect(row.source).toBe('season-totals');
     // Season totals: 9 L on 1.5 m² against 30 L on 2 m².
     expect(row.estimate).toBeCloseTo(Math.log(9 / 1.5 / (30 / 2)), 12);

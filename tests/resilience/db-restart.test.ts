@@ -97,7 +97,7 @@ describe('PostgreSQL restarted under a stream of writes', () => {
     // The app always answered: no connection errors, no 500s.
     expect(attempts.filter((a) => a.failure)).toEqual([]);
     const statuses = new Set(attempts.map((a) => a.res!.status));
-    expect([...statuses].filter((s) => ![200, 201, 503].includes(s))).toEqual([]);
+    expect([...statuses].filter((s) => ![200, 201, 503].includes(s)), `the app logged: ${app.errorLog.join('\n')}`).toEqual([]);
 
     // While the database was gone writes were refused with the one error shape and a retry hint.
     const refused = attempts.filter((a) => a.res!.status === 503);

@@ -16,6 +16,7 @@ import {
 } from '@shared/analysis/cohort-effects';
 import fc from 'fast-check';
 import { leaveOneOut, logRiskRatio, randomEffects } from '@shared/analysis/meta';
+import { forestTrials } from '@shared/charts/cohort-charts';
 import { cohortResultsSchema } from '@shared/schemas/cohort-results';
 import { LITRES_PER_US_GALLON } from '@shared/units';
 
@@ -193,7 +194,19 @@ describe('pooled water saving through the cohort assembly (BCG effects as per-tr
     expect(p.predictionInterval![0]).toBeCloseTo(-1.998838, 5);
     expect(p.predictionInterval![1]).toBeCloseTo(0.570604, 5);
     expect(w.forest.reduce((s, f) => s + f.weightPercent!, 0)).toBeCloseTo(100, 10);
-    expect(w.forest.map((f) => f.pseudonym)).toEqual(bcgRr.map((_, i) => `Grower T${i + 1}`));
+    // The forest rows carry only what pooling adds; joined with the trial rows they give back each trial's
+    // BCG log risk ratio and its variance (the pooling inputs) and, on the display scale, estimate ± 1.96·√variance.
+    const joined = forestTrials(bcgCohort(dl), 'waterLogRatio');
+    expect(joined.map((f) => f.pseudonym)).toEqual(bcgRr.map((_, i) => `Grower T${i + 1}`));
+    joined.forEach((f, i) => {
+      expect(f.estimate).toBeCloseTo(bcgRr[i]!.effect, 10);
+      expect(f.variance).toBeCloseTo(bcgRr[i]!.variance, 10);
+      expect(f).toMatchObject({ pairs: 2, source: 'pairs', flagged: false });
+      const half = 1.959963984540054 * Math.sqrt(f.variance); // z for 95 % (standard normal quantile, textbook value)
+      expect(f.display.estimate).toBeCloseTo((1 - Math.exp(f.estimate)) * 100, 10);
+      expect(f.display.ci[0]).toBeCloseTo((1 - Math.exp(f.estimate + half)) * 100, 8);
+      expect(f.display.ci[1]).toBeCloseTo((1 - Math.exp(f.estimate - half)) * 100, 8);
+    });
   });
 
   it('REML reproduces the published metafor results', () => {
@@ -246,7 +259,6 @@ describe('pooled water saving through the cohort assembly (BCG effects as per-tr
       rest.map((r) => r.variance),
     );
     const row = w.sensitivity.leaveOneOut.find((r) => r.omittedTrialId === uuid(8))!;
-    expect(row.pseudonym).toBe('Grower T8');
     expect(row.estimate).toBeCloseTo(direct.estimate, 12);
     expect(row.tau2).toBeCloseTo(direct.tau2, 12);
   });
@@ -336,7 +348,7 @@ describe('single-pair trials', () => {
     expect(w.singlePairs.imputedVariance).toBeCloseTo(0.08, 12);
     expect(w.singlePairs).toMatchObject({ eligible: 1, included: 1 });
     expect(w.singlePairs.rule).toMatch(/pragmatic choice, not a published rule/);
-    const row = w.forest.find((f) => f.trialId === uuid(4))!;
+    const row = forestTrials(r, 'waterLogRatio').find((f) => f.trialId === uuid(4))!;
     expect(row).toMatchObject({ source: 'season-totals', pairs: 1 });
     expect(row.estimate).toBeCloseTo(Math.log(0.5), 12);
     expect(row.variance).toBeCloseTo(0.08, 12);

@@ -1,6 +1,6 @@
 import { useTranslation } from 'react-i18next';
 import type { VisualizationSpec } from 'vega-embed';
-import { effectAxis, forestPlotSpec, forestTitle, trialLabels } from '@shared/charts/cohort-charts';
+import { effectAxis, forestPlotSpec, forestTitle, forestTrials, trialLabels } from '@shared/charts/cohort-charts';
 import { noPooledReason } from '@shared/analysis/cohort-words';
 import type { CohortResults, EffectKey, PooledEstimate } from '@shared/schemas/cohort-results';
 import { Chart } from '@/components/charts/chart';
@@ -89,7 +89,7 @@ export function ForestPlot({ results, effect }: { results: CohortResults; effect
       : t(($) => $.forest.takeaway, { confidence: conf, estimate: v(p.display.estimate), ci: iv(p.display.ci) })
     : `${t(($) => $.forest.takeawayNone, { confidence: conf })} ${noPooledReason(e, st) ?? ''}`;
   // The same order as the chart: largest effect first.
-  const forestRows = [...e.forest].sort((a, b) => b.display.estimate - a.display.estimate);
+  const forestRows = forestTrials(results, effect).sort((a, b) => b.display.estimate - a.display.estimate);
 
   return (
     <div ref={ref} className="space-y-4">

@@ -1,3 +1,4 @@
+import { forestTrials } from '@shared/charts/cohort-charts';
 import type { CohortResults, EffectResult } from '@shared/schemas/cohort-results';
 import { useTranslation } from 'react-i18next';
 import { Card } from '@/components/ui/card';
@@ -23,13 +24,14 @@ function Stat({ label, value, lines, tone }: { label: string; value: string; lin
   );
 }
 
-function waterSentences(e: EffectResult, conf: number): string[] {
+/** `pooledGrowers`: members behind the pooled trials (a member may share several trials). */
+function waterSentences(e: EffectResult, pooledGrowers: number, conf: number): string[] {
   const t = crT();
   const p = e.pooled;
   if (!p) return [t(($) => $.headline.waterNone, { k: e.k })];
   const est = p.display.estimate;
   const [lo, hi] = p.display.ci;
-  const across = { trials: trials(p.k), growers: growers(new Set(e.forest.map((f) => f.pseudonym)).size), amount: pct(Math.abs(est)) };
+  const across = { trials: trials(p.k), growers: growers(pooledGrowers), amount: pct(Math.abs(est)) };
   const out = [
     est >= 0 ? t(($) => $.headline.waterAcross, across) : t(($) => $.headline.waterAcrossMore, across),
     `${t(($) => $.headline.waterCi, { confidence: conf, range: range(p.display.ci, '%') })} ` +
@@ -112,7 +114,7 @@ export function Headline({ results }: { results: CohortResults }) {
         <Stat label={t(($) => $.headline.wueLabel)} value={wueStat.value} lines={wueStat.lines} tone="neutral" />
       </div>
       <div className="max-w-3xl space-y-2">
-        {waterSentences(water, conf).map((s) => (
+        {waterSentences(water, new Set(forestTrials(results, 'waterLogRatio').map((f) => f.pseudonym)).size, conf).map((s) => (
           <p key={s}>{s}</p>
         ))}
         <p>{harvestSentence}</p>

@@ -105,11 +105,11 @@ export function Sensitivity({ results, effect }: { results: CohortResults; effec
           <>
             <p className="text-sm">
               {leadBefore}
-              <strong>{labels[top!.omittedTrialId] ?? top!.pseudonym}</strong>
+              <strong>{labels[top!.omittedTrialId]}</strong>
               {leadAfter}
               {outside.length === 0
                 ? t(($) => $.sensitivity.looStable)
-                : t(($) => $.sensitivity.looLeans, { count: outside.length, trials: outside.map((r) => labels[r.omittedTrialId] ?? r.pseudonym).join(', ') })}
+                : t(($) => $.sensitivity.looLeans, { count: outside.length, trials: outside.map((r) => labels[r.omittedTrialId]).join(', ') })}
             </p>
             <div className="overflow-x-auto rounded-card border border-sand-200 bg-white" tabIndex={0} role="region" aria-label={t(($) => $.sensitivity.tableLabel, { measure: name })}>
               <table className="w-full text-sm">
@@ -137,7 +137,7 @@ export function Sensitivity({ results, effect }: { results: CohortResults; effec
                   {loo.map((r) => (
                     <tr key={r.omittedTrialId} className="border-t border-sand-100">
                       <th scope="row" className="px-3 py-2 text-left font-medium">
-                        {labels[r.omittedTrialId] ?? r.pseudonym}
+                        {labels[r.omittedTrialId]}
                       </th>
                       <td className="num whitespace-nowrap px-3 py-2">{v(r.display.estimate)}</td>
                       <td className="num whitespace-nowrap px-3 py-2">{iv(r.display.ci)}</td>
