@@ -94,6 +94,10 @@ export async function listen(app: Express): Promise<{ url: string; signal: Signa
     }
     app(req, res);
   });
+  // Longer than any client here keeps an idle connection: with Node's 5 s default the server can
+  // close a kept-alive socket just as the test's HTTP client reuses it (read ECONNRESET, seen
+  // once under load in the offline Round test).
+  server.keepAliveTimeout = 65_000;
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const { port } = server.address() as AddressInfo;
   return {
