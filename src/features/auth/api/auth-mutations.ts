@@ -17,7 +17,11 @@ export function useSignIn() {
   return useMutation({
     mutationFn: (input: SignInInput) => api.post<SessionInfo>('/api/auth/sign-in', input),
     onSuccess: (info) => {
-      qc.clear();
+      // Everything read under another session goes; the outbox (writes waiting on this phone, or
+      // refused because the session had expired) stays, so signing in again after an expiry loses
+      // nothing. A different account signing in cannot write them into someone else's trial: the
+      // server refuses them, and they wait as "not accepted" on their screen.
+      qc.getQueryCache().clear();
       write(info);
     },
   });
