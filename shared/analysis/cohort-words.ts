@@ -8,6 +8,8 @@ import { moistureMethodLabel } from '../charts/trial-charts';
 import { cropLabel } from '../charts/cohort-charts';
 import { enT, formatNum, type Translate } from '../i18n/translate';
 import type { CohortNoteCode, CohortResults, EffectKey, EffectResult, ModeratorKey, QualityFlag, TrialEffectNoteCode } from '../schemas/cohort-results';
+import { soilTextures } from '../schemas/gardens';
+import { potMakeSchema, potShapeSchema } from '../schemas/pots';
 import { toDisplay, unitLabel, type UnitSystem } from '../units';
 
 /** The effect's long label ("Log ratio of water used…") and how its display values read. */
@@ -71,22 +73,10 @@ export function potCapacityLevelLabel(level: string, t: Translate = enT, units: 
   return level;
 }
 
-const SHAPES = ['globe', 'bottle', 'cylinder', 'twin_pot'] as const;
-const MAKES = ['wheel_thrown', 'coil_built', 'slip_cast', 'joined_terracotta'] as const;
-const SOILS = [
-  'sand',
-  'loamy_sand',
-  'sandy_loam',
-  'loam',
-  'silt_loam',
-  'silt',
-  'sandy_clay_loam',
-  'clay_loam',
-  'silty_clay_loam',
-  'sandy_clay',
-  'silty_clay',
-  'clay',
-] as const;
+// The schemas' own lists, so a shape, make or soil class added there is worded here too.
+const SHAPES = potShapeSchema.options;
+const MAKES = potMakeSchema.options;
+const SOILS = soilTextures;
 const isOneOf = <T extends string>(list: readonly T[], v: string): v is T => (list as readonly string[]).includes(v);
 
 export function moderatorName(moderator: ModeratorKey, t: Translate = enT): string {
