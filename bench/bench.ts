@@ -367,7 +367,7 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       if (cohortQueries) {
         plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
         plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
-        plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
+        plans.push(await explain(ds, 'cohort.water', cohortQueries.water, [ids.bigCohortId, today()]));
         plans.push(await explain(ds, 'cohort.progress', cohortQueries.progress, [ids.bigCohortId]));
       }
       if (plans.length) fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));
