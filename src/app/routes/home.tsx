@@ -106,7 +106,9 @@ export function HomePage() {
   const trials = useTrials();
   const cohorts = useCohorts();
   const cohortsFirst = gardens.data?.length === 0 && trials.data?.length === 0 && (cohorts.data?.length ?? 0) > 0;
-  const gettingStarted = (
+  // Once any trial has a record the grower knows the routine: the primer would only push the cohorts down.
+  const started = trials.data?.some((tr) => tr.lastLoggedAt !== null) ?? false;
+  const gettingStarted = started ? null : (
     <Card>
       <h2>{t(($) => $.gettingStarted.title)}</h2>
       <p className="mt-2 text-ink-muted">{t(($) => $.gettingStarted.body)}</p>
