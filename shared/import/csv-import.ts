@@ -189,7 +189,8 @@ export function parseInstant(value: string, format: DateFormat, offsetMinutes: n
 /**
  * What is wrong with a row, as a code the client words in the reader's language (`params` fill
  * in the words); `reason` keeps the same message in English for logs, the API and older clients.
- * Errors found by the server's record schema have no code (their `reason` is the schema's message).
+ * Errors found by the server's record schema are `invalidValue` with the issue's facts (`reason` is
+ * the schema's own message) and `column` the record's field key.
  */
 export type RowErrorCode =
   | 'missingColumn'
@@ -201,7 +202,14 @@ export type RowErrorCode =
   | 'notDate'
   | 'notDateTime'
   | 'unknownPlot'
-  | 'outsideTrial';
+  | 'outsideTrial'
+  /** The server's record schema refused a value: `issue` has zod's facts, `reason` the schema's English message. */
+  | 'invalidValue'
+  | 'notRecord'
+  | 'nulCharacter';
+
+/** What the client needs to word a schema issue itself (as the server's `validation_failed` details carry). */
+export type RowIssue = Record<string, string | number | boolean> & { code: string };
 
 export interface RowError {
   /** 1-based line in the file, counting the header as line 1. */
@@ -210,6 +218,7 @@ export interface RowError {
   reason: string;
   code?: RowErrorCode;
   params?: Record<string, string | number>;
+  issue?: RowIssue;
 }
 
 export interface ImportOptions {

@@ -16,7 +16,9 @@ import {
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
+import { schemaMessageKeys as logsSchemaKeys } from '@/features/logs/components/schema-message-keys';
 import { formatDate, formatNumber } from '@/lib/format';
+import { issueMessage } from '@/lib/validation-messages';
 import type importEn from '@/locales/en/import.json';
 import { sendImport, serverRowErrors, useAfterImport, type ImportResult } from '../api/import-rows';
 import type { WorkerMessage, WorkerWarning } from '../worker/parse-csv.worker';
@@ -38,8 +40,12 @@ const fieldKeys: Record<FieldKey, true> = {
 };
 const lowerKeys: Record<LowerKey, true> = { volumeL: true, freshKg: true, marketableKg: true, tMinC: true, tMaxC: true, rainMm: true };
 
-/** A row problem in the reader's language: by its code (shared/import, the server), else the English reason as sent. */
-export function rowErrorText(t: TFunction<'import'>, e: RowError): string {
+/**
+ * A row problem in the reader's language: by its code (shared/import, the server); a value the
+ * server's record schema refused by the schema's own words where the logs forms have them, else
+ * by the issue's facts (too small, not one of the choices…); the English reason only as a last resort.
+ */
+export function rowErrorText(t: TFunction<'import'>, tl: TFunction<'logs'>, e: RowError): string {
   const p = e.params ?? {};
   const value = String(p.value ?? '');
   const field = fieldLabel(t, String(p.field ?? ''), e.column);
@@ -62,12 +68,19 @@ export function rowErrorText(t: TFunction<'import'>, e: RowError): string {
       return t(($) => $.rowErrors.notDateTime, { value });
     case 'unknownPlot':
       return t(($) => $.rowErrors.unknownPlot, { plot: String(p.plot ?? ''), plots: String(p.plots ?? '') });
-    case 'outsideTrial':
-      return t(($) => $.rowErrors.outsideTrial, {
-        day: formatDate(String(p.day ?? '')),
-        planted: formatDate(String(p.planted ?? '')),
-        ends: p.ends ? t(($) => $.rowErrors.ends, { date: formatDate(String(p.ends)) }) : '',
-      });
+    case 'outsideTrial': {
+      const facts = { day: formatDate(String(p.day ?? '')), planted: formatDate(String(p.planted ?? '')) };
+      return p.ends ? t(($) => $.rowErrors.outsideTrialEnds, { ...facts, ends: formatDate(String(p.ends)) }) : t(($) => $.rowErrors.outsideTrial, facts);
+    }
+    case 'notRecord':
+      return t(($) => $.rowErrors.notRecord);
+    case 'nulCharacter':
+      return t(($) => $.rowErrors.nulCharacter);
+    case 'invalidValue': {
+      const own = Object.hasOwn(logsSchemaKeys, e.reason) ? logsSchemaKeys[e.reason] : undefined;
+      if (own) return tl(($) => $.schema[own]);
+      return e.issue ? issueMessage(e.issue) : e.reason;
+    }
     default:
       return e.reason;
   }
@@ -98,14 +111,22 @@ function Progress({ label, fraction }: { label: string; fraction: number }) {
   );
 }
 
+/** The column a problem sits in: the file's header as read, or for the server's checks the record's field, worded. */
+function columnText(t: TFunction<'import'>, e: RowError): string {
+  if (e.code === 'missingColumn') return fieldLabel(t, String(e.params?.field ?? ''), e.column);
+  if (e.code === 'unknownPlot') return fieldLabel(t, 'plotLabel', e.column);
+  if (e.code === 'invalidValue' || e.code === 'nulCharacter' || e.code === 'outsideTrial') return fieldLabel(t, e.column, e.column);
+  return e.column;
+}
+
 function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
   const { t } = useTranslation('import');
+  const { t: tl } = useTranslation('logs');
   return (
     <div className="max-h-72 overflow-auto rounded-card border border-red-200 bg-white">
       <table className="w-full text-sm">
         <caption className="px-3 pt-2 text-left font-semibold text-red-900">
-          {t(($) => $.problems, { count: total })}
-          {total > errors.length ? t(($) => $.firstShown, { n: formatNumber(errors.length, 0) }) : ''}
+          {total > errors.length ? t(($) => $.problemsFirstShown, { count: total, n: formatNumber(errors.length, 0) }) : t(($) => $.problems, { count: total })}
         </caption>
         <thead className="text-left text-ink-muted">
           <tr>
@@ -124,8 +145,8 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
           {errors.map((e, i) => (
             <tr key={i} className="border-t border-sand-100">
               <td className="num px-3 py-1">{e.line}</td>
-              <td className="px-3 py-1">{(e.code === 'missingColumn' ? fieldLabel(t, String(e.params?.field ?? ''), e.column) : e.column) || '—'}</td>
-              <td className="px-3 py-1">{rowErrorText(t, e)}</td>
+              <td className="px-3 py-1">{columnText(t, e) || '—'}</td>
+              <td className="px-3 py-1">{rowErrorText(t, tl, e)}</td>
             </tr>
           ))}
         </tbody>
@@ -141,6 +162,8 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
  */
 export function ImportWizard({ trialId, userId }: { trialId: string; userId: string }) {
   const { t } = useTranslation('import');
+  // The problem list words schema messages from `logs`: loaded with the wizard, not when the first problem shows.
+  useTranslation('logs');
   const [kind, setKind] = useState<ImportKind>('water-events');
   const [parseProgress, setParseProgress] = useState<number | null>(null);
   const [sendProgress, setSendProgress] = useState<number | null>(null);
@@ -282,8 +305,10 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
       {parsed ? (
         <div className="space-y-4">
           <p className="text-sm">
-            <strong>{parsed.fileName}</strong>: {t(($) => $.summary, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
-            {parsed.encoding !== 'utf-8' ? t(($) => $.latin1) : '.'}
+            <strong>{parsed.fileName}</strong>:{' '}
+            {parsed.encoding !== 'utf-8'
+              ? t(($) => $.summaryLatin1, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })
+              : t(($) => $.summary, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
           </p>
           {parsed.warnings.map((w) => (
             <Alert key={w} tone="warning">
@@ -385,8 +410,9 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           {serverErrors ? <ErrorList errors={serverErrors.rows} total={serverErrors.total} /> : null}
           {result ? (
             <Alert tone="success">
-              {t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
-              {result.alreadyImported ? t(($) => $.skipped, { n: formatNumber(result.alreadyImported, 0) }) : ''}.
+              {result.alreadyImported
+                ? t(($) => $.importedSkipped, { count: result.inserted, n: formatNumber(result.inserted, 0), skipped: formatNumber(result.alreadyImported, 0) })
+                : t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
             </Alert>
           ) : null}
           <Button onClick={() => void send()} disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}>
