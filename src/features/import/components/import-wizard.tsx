@@ -10,16 +10,19 @@ import {
   normaliseRows,
   type ColumnMapping,
   type DateFormat,
+  type ImportField,
   type ImportKind,
+  type NormalisedRow,
   type RowError,
 } from '@shared/import/csv-import';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { schemaMessageKeys as logsSchemaKeys } from '@/features/logs/components/schema-message-keys';
-import { formatDate, formatNumber } from '@/lib/format';
+import { formatDate, formatDateTime, formatNumber } from '@/lib/format';
 import { issueMessage } from '@/lib/validation-messages';
 import type importEn from '@/locales/en/import.json';
+import logsEn from '@/locales/en/logs.json';
 import { sendImport, serverRowErrors, useAfterImport, type ImportResult } from '../api/import-rows';
 import type { WorkerMessage, WorkerWarning } from '../worker/parse-csv.worker';
 
@@ -34,9 +37,29 @@ function fieldLabel(t: TFunction<'import'>, key: string, fallback: string): stri
   return k in fieldKeys ? t(($) => $.fields[k]) : fallback;
 }
 const fieldKeys: Record<FieldKey, true> = {
-  plotLabel: true, occurredAt: true, takenAt: true, kind: true, volumeL: true, source: true, fertiliser: true, notes: true, method: true, depthCm: true, value: true,
-  harvestedOn: true, freshKg: true, marketableKg: true, count: true, day: true, tMinC: true, tMaxC: true, rainMm: true, rhMinPct: true, rhMaxPct: true,
-  windSpeedMs: true, sunshineHours: true,
+  plotLabel: true,
+  occurredAt: true,
+  takenAt: true,
+  kind: true,
+  volumeL: true,
+  source: true,
+  fertiliser: true,
+  notes: true,
+  method: true,
+  depthCm: true,
+  value: true,
+  harvestedOn: true,
+  freshKg: true,
+  marketableKg: true,
+  count: true,
+  day: true,
+  tMinC: true,
+  tMaxC: true,
+  rainMm: true,
+  rhMinPct: true,
+  rhMaxPct: true,
+  windSpeedMs: true,
+  sunshineHours: true,
 };
 const lowerKeys: Record<LowerKey, true> = { volumeL: true, freshKg: true, marketableKg: true, tMinC: true, tMaxC: true, rainMm: true };
 
@@ -84,6 +107,22 @@ export function rowErrorText(t: TFunction<'import'>, tl: TFunction<'logs'>, e: R
     default:
       return e.reason;
   }
+}
+
+type LogsEn = typeof logsEn;
+const has = <T extends object>(o: T, k: unknown): k is keyof T => typeof k === 'string' && Object.hasOwn(o, k);
+
+/** A previewed value as the reader reads it: dates and numbers in their language, codes by name (stored as SI values and codes). */
+function previewCell(tl: TFunction<'logs'>, f: ImportField, v: NormalisedRow[string] | undefined): string {
+  if (v === undefined || v === null) return '—';
+  if (typeof v === 'number') return formatNumber(v, 3);
+  if (typeof v === 'boolean') return v ? tl(($) => $.yes) : tl(($) => $.no);
+  if (f.type === 'datetime') return formatDateTime(v);
+  if (f.type === 'date') return formatDate(v);
+  if (f.key === 'kind' && has<LogsEn['waterKinds']>(logsEn.waterKinds, v)) return tl(($) => $.waterKinds[v]);
+  if (f.key === 'source' && has<LogsEn['sources']>(logsEn.sources, v)) return tl(($) => $.sources[v]);
+  if (f.key === 'method' && has<LogsEn['methods']>(logsEn.methods, v)) return tl(($) => $.methods[v]);
+  return v;
 }
 
 const warningText = (t: TFunction<'import'>, w: WorkerWarning) => (w === 'oneColumn' ? t(($) => $.oneColumn) : w);
@@ -162,8 +201,8 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
  */
 export function ImportWizard({ trialId, userId }: { trialId: string; userId: string }) {
   const { t } = useTranslation('import');
-  // The problem list words schema messages from `logs`: loaded with the wizard, not when the first problem shows.
-  useTranslation('logs');
+  // The preview and the problem list word values and schema messages from `logs`.
+  const { t: tl } = useTranslation('logs');
   const [kind, setKind] = useState<ImportKind>('water-events');
   const [parseProgress, setParseProgress] = useState<number | null>(null);
   const [sendProgress, setSendProgress] = useState<number | null>(null);
@@ -213,7 +252,10 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
       if (m.type === 'progress') setParseProgress(m.fraction);
       else if (m.type === 'error') {
         const e = m.error;
-        setMessage({ tone: 'error', text: e.code === 'unreadable' ? t(($) => $.unreadable, { detail: e.detail }) : e.code === 'noHeader' ? t(($) => $.noHeader) : t(($) => $.fileEmpty) });
+        setMessage({
+          tone: 'error',
+          text: e.code === 'unreadable' ? t(($) => $.unreadable, { detail: e.detail }) : e.code === 'noHeader' ? t(($) => $.noHeader) : t(($) => $.fileEmpty),
+        });
         setParseProgress(null);
         worker.terminate();
       } else {
@@ -253,7 +295,10 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
     setMessage(null);
     setServerErrors(null);
     setSendProgress(0);
-    localStorage.setItem(storageKey, JSON.stringify(Object.fromEntries(Object.entries(mapping).flatMap(([k, v]) => (v === undefined ? [] : [[k, parsed.headers[v]]])))));
+    localStorage.setItem(
+      storageKey,
+      JSON.stringify(Object.fromEntries(Object.entries(mapping).flatMap(([k, v]) => (v === undefined ? [] : [[k, parsed.headers[v]]])))),
+    );
     try {
       const r = await sendImport(trialId, kind, normalised.records, parsed.fileName, setSendProgress);
       setResult(r);
@@ -307,8 +352,12 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           <p className="text-sm">
             <strong>{parsed.fileName}</strong>:{' '}
             {parsed.encoding !== 'utf-8'
-              ? t(($) => $.summaryLatin1, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })
-              : t(($) => $.summary, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
+              ? t(($) => $.summaryLatin1, {
+                  count: parsed.rows.length,
+                  rows: formatNumber(parsed.rows.length, 0),
+                  columns: formatNumber(parsed.headers.length, 0),
+                })
+              : t(($) => $.summary, { count: parsed.rows.length, rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
           </p>
           {parsed.warnings.map((w) => (
             <Alert key={w} tone="warning">
@@ -338,10 +387,22 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
                     onChange={(e) => setUnits((u) => ({ ...u, [f.key]: e.target.value as 'metric' | 'us' }))}
                   >
                     <option value="metric">
-                      {f.quantity === 'volume' ? t(($) => $.units.litres) : f.quantity === 'mass' ? t(($) => $.units.kilograms) : f.quantity === 'temperature' ? '°C' : t(($) => $.units.mm)}
+                      {f.quantity === 'volume'
+                        ? t(($) => $.units.litres)
+                        : f.quantity === 'mass'
+                          ? t(($) => $.units.kilograms)
+                          : f.quantity === 'temperature'
+                            ? '°C'
+                            : t(($) => $.units.mm)}
                     </option>
                     <option value="us">
-                      {f.quantity === 'volume' ? t(($) => $.units.usGallons) : f.quantity === 'mass' ? t(($) => $.units.pounds) : f.quantity === 'temperature' ? '°F' : t(($) => $.units.inches)}
+                      {f.quantity === 'volume'
+                        ? t(($) => $.units.usGallons)
+                        : f.quantity === 'mass'
+                          ? t(($) => $.units.pounds)
+                          : f.quantity === 'temperature'
+                            ? '°F'
+                            : t(($) => $.units.inches)}
                     </option>
                   </SelectField>
                 ) : null}
@@ -372,7 +433,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               {normalised.errors.length ? (
                 <ErrorList errors={normalised.errors.slice(0, 300)} total={normalised.errors.length} />
               ) : (
-                <Alert tone="success">{t(($) => $.allReady, { rows: formatNumber(normalised.records.length, 0) })}</Alert>
+                <Alert tone="success">{t(($) => $.allReady, { count: normalised.records.length, rows: formatNumber(normalised.records.length, 0) })}</Alert>
               )}
               <div className="relative overflow-x-auto">
                 <table className="w-full text-sm">
@@ -382,23 +443,29 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
                       <th scope="col" className="px-2 py-1">
                         {t(($) => $.line)}
                       </th>
-                      {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
-                        <th key={f.key} scope="col" className="px-2 py-1">
-                          {fieldLabel(t, f.key, f.label)}
-                          {f.quantity ? ` (${f.quantity === 'volume' ? 'L' : f.quantity === 'mass' ? 'kg' : f.quantity === 'temperature' ? '°C' : 'mm'})` : ''}
-                        </th>
-                      ))}
+                      {fields
+                        .filter((f) => mapping[f.key] !== undefined)
+                        .map((f) => (
+                          <th key={f.key} scope="col" className="px-2 py-1">
+                            {fieldLabel(t, f.key, f.label)}
+                            {f.quantity
+                              ? ` (${f.quantity === 'volume' ? 'L' : f.quantity === 'mass' ? 'kg' : f.quantity === 'temperature' ? '°C' : 'mm'})`
+                              : ''}
+                          </th>
+                        ))}
                     </tr>
                   </thead>
                   <tbody>
                     {normalised.records.slice(0, 10).map((r) => (
                       <tr key={r.line} className="border-t border-sand-100">
                         <td className="num px-2 py-1">{r.line}</td>
-                        {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
-                          <td key={f.key} className="px-2 py-1">
-                            {r[f.key] === undefined || r[f.key] === null ? '—' : typeof r[f.key] === 'number' ? formatNumber(r[f.key] as number, 3) : String(r[f.key])}
-                          </td>
-                        ))}
+                        {fields
+                          .filter((f) => mapping[f.key] !== undefined)
+                          .map((f) => (
+                            <td key={f.key} className="px-2 py-1">
+                              {previewCell(tl, f, r[f.key])}
+                            </td>
+                          ))}
                       </tr>
                     ))}
                   </tbody>
@@ -410,13 +477,24 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           {serverErrors ? <ErrorList errors={serverErrors.rows} total={serverErrors.total} /> : null}
           {result ? (
             <Alert tone="success">
-              {result.alreadyImported
-                ? t(($) => $.importedSkipped, { count: result.inserted, n: formatNumber(result.inserted, 0), skipped: formatNumber(result.alreadyImported, 0) })
-                : t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
+              {result.alreadyImported && !result.inserted
+                ? t(($) => $.allAlreadyImported, { count: result.alreadyImported, n: formatNumber(result.alreadyImported, 0) })
+                : result.alreadyImported
+                  ? t(($) => $.importedSkipped, {
+                      count: result.inserted,
+                      n: formatNumber(result.inserted, 0),
+                      skipped: formatNumber(result.alreadyImported, 0),
+                    })
+                  : t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
             </Alert>
           ) : null}
-          <Button onClick={() => void send()} disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}>
-            {normalised?.records.length ? t(($) => $.importRows, { n: formatNumber(normalised.records.length, 0) }) : t(($) => $.importNone)}
+          <Button
+            onClick={() => void send()}
+            disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}
+          >
+            {normalised?.records.length
+              ? t(($) => $.importRows, { count: normalised.records.length, n: formatNumber(normalised.records.length, 0) })
+              : t(($) => $.importNone)}
           </Button>
         </div>
       ) : null}
