@@ -37,29 +37,9 @@ function fieldLabel(t: TFunction<'import'>, key: string, fallback: string): stri
   return k in fieldKeys ? t(($) => $.fields[k]) : fallback;
 }
 const fieldKeys: Record<FieldKey, true> = {
-  plotLabel: true,
-  occurredAt: true,
-  takenAt: true,
-  kind: true,
-  volumeL: true,
-  source: true,
-  fertiliser: true,
-  notes: true,
-  method: true,
-  depthCm: true,
-  value: true,
-  harvestedOn: true,
-  freshKg: true,
-  marketableKg: true,
-  count: true,
-  day: true,
-  tMinC: true,
-  tMaxC: true,
-  rainMm: true,
-  rhMinPct: true,
-  rhMaxPct: true,
-  windSpeedMs: true,
-  sunshineHours: true,
+  plotLabel: true, occurredAt: true, takenAt: true, kind: true, volumeL: true, source: true, fertiliser: true, notes: true, method: true, depthCm: true, value: true,
+  harvestedOn: true, freshKg: true, marketableKg: true, count: true, day: true, tMinC: true, tMaxC: true, rainMm: true, rhMinPct: true, rhMaxPct: true,
+  windSpeedMs: true, sunshineHours: true,
 };
 const lowerKeys: Record<LowerKey, true> = { volumeL: true, freshKg: true, marketableKg: true, tMinC: true, tMaxC: true, rainMm: true };
 
@@ -252,10 +232,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
       if (m.type === 'progress') setParseProgress(m.fraction);
       else if (m.type === 'error') {
         const e = m.error;
-        setMessage({
-          tone: 'error',
-          text: e.code === 'unreadable' ? t(($) => $.unreadable, { detail: e.detail }) : e.code === 'noHeader' ? t(($) => $.noHeader) : t(($) => $.fileEmpty),
-        });
+        setMessage({ tone: 'error', text: e.code === 'unreadable' ? t(($) => $.unreadable, { detail: e.detail }) : e.code === 'noHeader' ? t(($) => $.noHeader) : t(($) => $.fileEmpty) });
         setParseProgress(null);
         worker.terminate();
       } else {
@@ -295,10 +272,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
     setMessage(null);
     setServerErrors(null);
     setSendProgress(0);
-    localStorage.setItem(
-      storageKey,
-      JSON.stringify(Object.fromEntries(Object.entries(mapping).flatMap(([k, v]) => (v === undefined ? [] : [[k, parsed.headers[v]]])))),
-    );
+    localStorage.setItem(storageKey, JSON.stringify(Object.fromEntries(Object.entries(mapping).flatMap(([k, v]) => (v === undefined ? [] : [[k, parsed.headers[v]]])))));
     try {
       const r = await sendImport(trialId, kind, normalised.records, parsed.fileName, setSendProgress);
       setResult(r);
@@ -352,11 +326,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           <p className="text-sm">
             <strong>{parsed.fileName}</strong>:{' '}
             {parsed.encoding !== 'utf-8'
-              ? t(($) => $.summaryLatin1, {
-                  count: parsed.rows.length,
-                  rows: formatNumber(parsed.rows.length, 0),
-                  columns: formatNumber(parsed.headers.length, 0),
-                })
+              ? t(($) => $.summaryLatin1, { count: parsed.rows.length, rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })
               : t(($) => $.summary, { count: parsed.rows.length, rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
           </p>
           {parsed.warnings.map((w) => (
@@ -387,22 +357,10 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
                     onChange={(e) => setUnits((u) => ({ ...u, [f.key]: e.target.value as 'metric' | 'us' }))}
                   >
                     <option value="metric">
-                      {f.quantity === 'volume'
-                        ? t(($) => $.units.litres)
-                        : f.quantity === 'mass'
-                          ? t(($) => $.units.kilograms)
-                          : f.quantity === 'temperature'
-                            ? '°C'
-                            : t(($) => $.units.mm)}
+                      {f.quantity === 'volume' ? t(($) => $.units.litres) : f.quantity === 'mass' ? t(($) => $.units.kilograms) : f.quantity === 'temperature' ? '°C' : t(($) => $.units.mm)}
                     </option>
                     <option value="us">
-                      {f.quantity === 'volume'
-                        ? t(($) => $.units.usGallons)
-                        : f.quantity === 'mass'
-                          ? t(($) => $.units.pounds)
-                          : f.quantity === 'temperature'
-                            ? '°F'
-                            : t(($) => $.units.inches)}
+                      {f.quantity === 'volume' ? t(($) => $.units.usGallons) : f.quantity === 'mass' ? t(($) => $.units.pounds) : f.quantity === 'temperature' ? '°F' : t(($) => $.units.inches)}
                     </option>
                   </SelectField>
                 ) : null}
@@ -443,29 +401,23 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
                       <th scope="col" className="px-2 py-1">
                         {t(($) => $.line)}
                       </th>
-                      {fields
-                        .filter((f) => mapping[f.key] !== undefined)
-                        .map((f) => (
-                          <th key={f.key} scope="col" className="px-2 py-1">
-                            {fieldLabel(t, f.key, f.label)}
-                            {f.quantity
-                              ? ` (${f.quantity === 'volume' ? 'L' : f.quantity === 'mass' ? 'kg' : f.quantity === 'temperature' ? '°C' : 'mm'})`
-                              : ''}
-                          </th>
-                        ))}
+                      {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
+                        <th key={f.key} scope="col" className="px-2 py-1">
+                          {fieldLabel(t, f.key, f.label)}
+                          {f.quantity ? ` (${f.quantity === 'volume' ? 'L' : f.quantity === 'mass' ? 'kg' : f.quantity === 'temperature' ? '°C' : 'mm'})` : ''}
+                        </th>
+                      ))}
                     </tr>
                   </thead>
                   <tbody>
                     {normalised.records.slice(0, 10).map((r) => (
                       <tr key={r.line} className="border-t border-sand-100">
                         <td className="num px-2 py-1">{r.line}</td>
-                        {fields
-                          .filter((f) => mapping[f.key] !== undefined)
-                          .map((f) => (
-                            <td key={f.key} className="px-2 py-1">
-                              {previewCell(tl, f, r[f.key])}
-                            </td>
-                          ))}
+                        {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
+                          <td key={f.key} className="px-2 py-1">
+                            {previewCell(tl, f, r[f.key])}
+                          </td>
+                        ))}
                       </tr>
                     ))}
                   </tbody>
@@ -480,21 +432,12 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               {result.alreadyImported && !result.inserted
                 ? t(($) => $.allAlreadyImported, { count: result.alreadyImported, n: formatNumber(result.alreadyImported, 0) })
                 : result.alreadyImported
-                  ? t(($) => $.importedSkipped, {
-                      count: result.inserted,
-                      n: formatNumber(result.inserted, 0),
-                      skipped: formatNumber(result.alreadyImported, 0),
-                    })
+                  ? t(($) => $.importedSkipped, { count: result.inserted, n: formatNumber(result.inserted, 0), skipped: formatNumber(result.alreadyImported, 0) })
                   : t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
             </Alert>
           ) : null}
-          <Button
-            onClick={() => void send()}
-            disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}
-          >
-            {normalised?.records.length
-              ? t(($) => $.importRows, { count: normalised.records.length, n: formatNumber(normalised.records.length, 0) })
-              : t(($) => $.importNone)}
+          <Button onClick={() => void send()} disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}>
+            {normalised?.records.length ? t(($) => $.importRows, { count: normalised.records.length, n: formatNumber(normalised.records.length, 0) }) : t(($) => $.importNone)}
           </Button>
         </div>
       ) : null}
