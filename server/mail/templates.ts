@@ -41,12 +41,13 @@ export const mailTemplates = {
       ? build('Confirma tu correo en Seepwise', [`Hola, ${name}:`, 'Confirma que esta dirección es tuya para recibir recordatorios de riego y avisos de helada.'], { href, label: 'Confirmar mi correo' })
       : build('Confirm your e-mail for Seepwise', [`Hello ${name},`, 'Confirm that this address is yours so refill reminders and frost warnings reach you.'], { href, label: 'Confirm my e-mail' });
   },
-  cohortInvitation(lang: Lang, cohortName: string, role: 'contributor' | 'observer', href: string): MailContent {
+  cohortInvitation(lang: Lang, cohortName: string, role: 'contributor' | 'observer', href: string, expiresAt: Date): MailContent {
+    const until = formatInstantDay(lang, expiresAt);
     const roleEn = role === 'contributor' ? 'a contributor (you share your own trials)' : 'an observer (you read and export the pooled data)';
     const roleEs = role === 'contributor' ? 'colaborador (compartes tus propios ensayos)' : 'observador (lees y exportas los datos agrupados)';
     return lang === 'es'
-      ? build(`Invitación a «${cohortName}» en Seepwise`, [`Te han invitado a unirte a «${cohortName}» como ${roleEs}.`, 'Los demás miembros te verán con un seudónimo, nunca con tu nombre. La invitación caduca en 14 días.'], { href, label: 'Ver la invitación' })
-      : build(`You are invited to "${cohortName}" on Seepwise`, [`You have been invited to join "${cohortName}" as ${roleEn}.`, 'Other members see you under a pseudonym, never your name. The invitation expires in 14 days.'], { href, label: 'Open the invitation' });
+      ? build(`Invitación a «${cohortName}» en Seepwise`, [`Te han invitado a unirte a «${cohortName}» como ${roleEs}.`, `Los demás miembros te verán con un seudónimo, nunca con tu nombre. La invitación caduca el ${until}.`], { href, label: 'Ver la invitación' })
+      : build(`You are invited to "${cohortName}" on Seepwise`, [`You have been invited to join "${cohortName}" as ${roleEn}.`, `Other members see you under a pseudonym, never your name. The invitation expires on ${until}.`], { href, label: 'Open the invitation' });
   },
 };
 
@@ -121,6 +122,11 @@ export function formatDay(lang: Lang, isoDate: string): string {
   return new Intl.DateTimeFormat(lang === 'es' ? 'es' : 'en-GB', { day: 'numeric', month: 'long', timeZone: 'UTC' }).format(d);
 }
 
+/** The UTC day of an instant, with its year: "16 December 2026" / "16 de diciembre de 2026" (days are UTC days, DEVELOPERS.md). */
+export function formatInstantDay(lang: Lang, at: Date): string {
+  return new Intl.DateTimeFormat(lang === 'es' ? 'es' : 'en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }).format(at);
+}
+
 function formatNumber(lang: Lang, value: number, digits: number): string {
   return new Intl.NumberFormat(lang === 'es' ? 'es' : 'en-GB', { maximumFractionDigits: digits, minimumFractionDigits: digits }).format(value);
 }
@@ -166,7 +172,7 @@ export interface DigestMailCohort {
 }
 
 const flagTextEs: Record<QualityFlag['kind'], string> = {
-  'out-of-line': 'un efecto muy alejado del de los demás ensayos de la cohorte',
+  'out-of-line': 'un efecto muy alejado del de los demás ensayos del grupo',
   'wrong-unit': 'semanas cuyos litros por riego parecen una confusión entre galones y litros',
   'mixed-moisture-methods': 'humedad del suelo medida con más de un método, cuyas escalas no se pueden comparar',
   'closed-without-harvest': 'cerrado sin ningún registro de cosecha',
@@ -249,7 +255,7 @@ export const notificationTemplates = {
       {
         paragraphs: [
           es ? `Hola, ${name}:` : `Hello ${name},`,
-          es ? `Esto pasó en los ensayos compartidos de tus cohortes en los 7 días hasta el ${formatDay(lang, upTo)}.` : `Here is what happened in your cohorts' shared trials in the 7 days to ${formatDay(lang, upTo)}.`,
+          es ? `Esto pasó en los ensayos compartidos de tus grupos en los 7 días hasta el ${formatDay(lang, upTo)}.` : `Here is what happened in your cohorts' shared trials in the 7 days to ${formatDay(lang, upTo)}.`,
         ],
       },
     ];
@@ -275,14 +281,14 @@ export const notificationTemplates = {
       if (c.newFlags.length) {
         sections.push({ subheading: es ? 'Avisos de calidad nuevos' : 'New quality flags', items: c.newFlags.map((f) => ({ text: `${f.label}: ${es ? flagTextEs[f.kind] : f.message}` })) });
       }
-      sections.push({ link: { text: es ? 'Abrir la cohorte:' : 'Open the cohort:', href: c.href, label: c.cohortName } });
+      sections.push({ link: { text: es ? 'Abrir el grupo:' : 'Open the cohort:', href: c.href, label: c.cohortName } });
     }
     return buildNotice(
       lang,
       es ? `Resumen semanal de Seepwise: ${entries} registro${entries === 1 ? '' : 's'} nuevo${entries === 1 ? '' : 's'}` : `Seepwise weekly digest: ${entries} new entr${entries === 1 ? 'y' : 'ies'} in your cohorts`,
       sections,
       footer,
-      es ? 'Recibes este correo porque diriges una cohorte y tienes activado el resumen semanal.' : 'You get this e-mail because you lead a cohort and the weekly digest is on in your account.',
+      es ? 'Recibes este correo porque coordinas un grupo y tienes activado el resumen semanal.' : 'You get this e-mail because you lead a cohort and the weekly digest is on in your account.',
     );
   },
 };

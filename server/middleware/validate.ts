@@ -5,8 +5,8 @@ import { AppError } from '../lib/app-error';
 type Part = 'body' | 'query' | 'params';
 
 /** What the client needs to word an issue itself: zod's code and the limits it names (shared/api-error.ts `fieldIssueSchema`). */
-function issueFacts(i: z.core.$ZodIssue): Record<string, string | number | boolean> {
-  const facts: Record<string, string | number | boolean> = { code: i.code };
+function issueFacts(i: z.core.$ZodIssue): Record<string, string | number | boolean> & { code: string } {
+  const facts: Record<string, string | number | boolean> & { code: string } = { code: i.code };
   for (const k of ['origin', 'minimum', 'maximum', 'inclusive', 'format', 'expected', 'divisor'] as const) {
     const v = (i as unknown as Record<string, unknown>)[k];
     if (typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean') facts[k] = v;

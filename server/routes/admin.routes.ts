@@ -67,7 +67,7 @@ export function adminRoutes(ctx: AppContext): RouteSpec[] {
             database: { status: 'up', latencyMs: Math.round(dbMs * 10) / 10, version: counts.version.split(' on ')[0], migrationsApplied: counts.migrations },
             counts: { users: counts.users, cohorts: counts.cohorts, activeSessions: counts.active_sessions },
             process: { uptimeS: Math.round(process.uptime()), rssMb: Math.round(mem.rss / 1048576), heapUsedMb: Math.round(mem.heapUsed / 1048576), node: process.version },
-            mail: { mode: ctx.outbox ? 'local sink (development)' : 'SMTP' },
+            mail: { mode: ctx.outbox ? 'sink' : 'smtp' },
           },
         });
       }),

@@ -162,7 +162,7 @@ export function cohortsService(ctx: AppContext) {
       });
       const href = `${ctx.publicUrl}/join?invite=${encodeURIComponent(token)}`;
       const [invitee] = (await ctx.ds.query(`SELECT language FROM users WHERE email = $1`, [email])) as { language: 'en' | 'es' }[];
-      await ctx.mailer.send({ to: email, ...mailTemplates.cohortInvitation(invitee?.language ?? inviter.language, cohort.name, role, href) });
+      await ctx.mailer.send({ to: email, ...mailTemplates.cohortInvitation(invitee?.language ?? inviter.language, cohort.name, role, href, inv.expiresAt) });
       return { id: inv.id, email: inv.email, role: inv.role, expiresAt: inv.expiresAt.toISOString(), acceptedAt: null };
     },
 

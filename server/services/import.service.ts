@@ -8,6 +8,7 @@ import { from as copyFrom } from 'pg-copy-streams';
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import { AppError } from '../lib/app-error';
+import { zodIssues } from '../middleware/validate';
 import { assertTrialWritable } from './trials.service';
 
 /** How many row errors are listed in one answer; the total is always given. */
@@ -178,7 +179,7 @@ export function importService(ctx: AppContext) {
       const when = timeField[kind];
       rows.forEach((raw, i) => {
         if (!isPlainRow(raw)) {
-          errors.push({ line: i + 2, column: '', reason: 'This row is not a record of named fields.' });
+          errors.push({ line: i + 2, column: '', reason: 'This row is not a record of named fields.', code: 'notRecord' });
           return;
         }
         const line = typeof raw.line === 'number' ? raw.line : i + 2;
@@ -202,7 +203,7 @@ export function importService(ctx: AppContext) {
         }
         const parsed = schema.safeParse(input);
         if (!parsed.success) {
-          for (const issue of parsed.error.issues) errors.push({ line, column: issue.path.join('.') || '', reason: issue.message });
+          for (const issue of zodIssues(parsed.error)) errors.push({ line, column: issue.path, reason: issue.message, code: 'invalidValue', issue: issue.issue });
           return;
         }
         const value = parsed.data as Row;
@@ -210,7 +211,7 @@ export function importService(ctx: AppContext) {
         for (const f of fields) {
           const v = value[f];
           if (typeof v === 'string' && v.includes('\0')) {
-            errors.push({ line, column: f, reason: 'This cell contains a NUL character, which cannot be stored.' });
+            errors.push({ line, column: f, reason: 'This cell contains a NUL character, which cannot be stored.', code: 'nulCharacter' });
             return;
           }
         }

@@ -100,6 +100,18 @@ export async function assertTrialWritable(em: EntityManager, trialId: string) {
 
 const allowedTransitions: Record<TrialStatus, TrialStatus[]> = { draft: ['active', 'closed'], active: ['closed', 'draft'], closed: ['active'] };
 
+/**
+ * Why a status change is refused, as a reason the client words with what to do. The only move
+ * the table refuses is closed → draft (a closed trial's record is finished; reopening it makes it
+ * active, and an active trial may go back to draft); any other refused pair keeps the general reason.
+ */
+function statusChangeRefused(from: TrialStatus, to: TrialStatus): AppError {
+  if (from === 'closed' && to === 'draft') {
+    return new AppError('conflict', 'A closed trial cannot go back to draft. Reopen it first: it becomes active, and an active trial can be set back to draft.').because('status_closed_to_draft', { from, to });
+  }
+  return new AppError('conflict', `A ${from} trial cannot become ${to}.`).because('status_change_invalid', { from, to });
+}
+
 export function trialsService(ctx: AppContext) {
   const trials = ctx.ds.getRepository(TrialEntity);
   const plots = ctx.ds.getRepository(PlotEntity);
@@ -152,7 +164,7 @@ export function trialsService(ctx: AppContext) {
         if (!row) throw AppError.notFound('Trial');
         if (row.status === status) return;
         if (!allowedTransitions[row.status].includes(status)) {
-          throw new AppError('conflict', `A ${row.status} trial cannot become ${status}.`).because('status_change_invalid', { from: row.status, to: status });
+          throw statusChangeRefused(row.status, status);
         }
         await tx.query('UPDATE trials SET status = $2, updated_at = now() WHERE id = $1', [id, status]);
         await writeAudit(tx, { trialId: id, actorId, action: 'status', entityType: 'trial', entityId: id, changes: { status: [row.status, status] } });

@@ -28,37 +28,37 @@ export interface ImportField {
 export const importFields: Record<ImportKind, ImportField[]> = {
   'water-events': [
     { key: 'plotLabel', label: 'Plot', type: 'text', required: true, aliases: ['plot', 'plotlabel', 'bed', 'parcela'] },
-    { key: 'occurredAt', label: 'Date and time', type: 'datetime', required: true, aliases: ['occurredat', 'date', 'datetime', 'time', 'when', 'fecha', 'timestamp'] },
-    { key: 'kind', label: 'Kind (olla_refill or surface)', type: 'text', required: true, aliases: ['kind', 'type', 'method', 'tipo'] },
-    { key: 'volumeL', label: 'Volume', type: 'number', required: true, quantity: 'volume', aliases: ['volumel', 'volume', 'litres', 'liters', 'gallons', 'gal', 'volumen', 'amount'] },
-    { key: 'source', label: 'Source', type: 'text', required: false, aliases: ['source', 'watersource', 'fuente'] },
-    { key: 'fertiliser', label: 'Fertiliser added', type: 'boolean', required: false, aliases: ['fertiliser', 'fertilizer', 'fertilised', 'fertilizante'] },
+    { key: 'occurredAt', label: 'Date and time', type: 'datetime', required: true, aliases: ['occurredat', 'date', 'datetime', 'time', 'when', 'fecha', 'timestamp', 'fechayhora', 'hora'] },
+    { key: 'kind', label: 'Kind (olla_refill or surface)', type: 'text', required: true, aliases: ['kind', 'type', 'method', 'tipo', 'riego', 'tipoderiego'] },
+    { key: 'volumeL', label: 'Volume', type: 'number', required: true, quantity: 'volume', aliases: ['volumel', 'volume', 'litres', 'liters', 'gallons', 'gal', 'volumen', 'amount', 'litros', 'galones', 'agua'] },
+    { key: 'source', label: 'Source', type: 'text', required: false, aliases: ['source', 'watersource', 'fuente', 'origen'] },
+    { key: 'fertiliser', label: 'Fertiliser added', type: 'boolean', required: false, aliases: ['fertiliser', 'fertilizer', 'fertilised', 'fertilizante', 'abono', 'confertilizante'] },
     { key: 'notes', label: 'Notes', type: 'text', required: false, aliases: ['notes', 'note', 'comment', 'notas'] },
   ],
   'moisture-readings': [
     { key: 'plotLabel', label: 'Plot', type: 'text', required: true, aliases: ['plot', 'plotlabel', 'bed', 'parcela', 'sensor'] },
-    { key: 'takenAt', label: 'Date and time', type: 'datetime', required: true, aliases: ['takenat', 'date', 'datetime', 'time', 'timestamp', 'fecha'] },
+    { key: 'takenAt', label: 'Date and time', type: 'datetime', required: true, aliases: ['takenat', 'date', 'datetime', 'time', 'timestamp', 'fecha', 'fechayhora', 'hora'] },
     { key: 'method', label: 'Method (vwc, tensiometer, probe_index)', type: 'text', required: true, aliases: ['method', 'metodo', 'sensor_type', 'sensortype'] },
     { key: 'depthCm', label: 'Depth (cm)', type: 'number', required: true, aliases: ['depthcm', 'depth', 'profundidad'] },
-    { key: 'value', label: 'Reading', type: 'number', required: true, aliases: ['value', 'reading', 'vwc', 'moisture', 'kpa', 'valor'] },
+    { key: 'value', label: 'Reading', type: 'number', required: true, aliases: ['value', 'reading', 'vwc', 'moisture', 'kpa', 'valor', 'lectura', 'humedad'] },
   ],
   harvests: [
     { key: 'plotLabel', label: 'Plot', type: 'text', required: true, aliases: ['plot', 'plotlabel', 'bed', 'parcela'] },
-    { key: 'harvestedOn', label: 'Day', type: 'date', required: true, aliases: ['harvestedon', 'date', 'day', 'fecha'] },
-    { key: 'freshKg', label: 'Fresh mass', type: 'number', required: true, quantity: 'mass', aliases: ['freshkg', 'fresh', 'mass', 'weight', 'kg', 'lb', 'peso'] },
-    { key: 'marketableKg', label: 'Marketable mass', type: 'number', required: false, quantity: 'mass', aliases: ['marketablekg', 'marketable', 'comercial'] },
-    { key: 'count', label: 'Count', type: 'integer', required: false, aliases: ['count', 'fruits', 'number', 'cantidad'] },
+    { key: 'harvestedOn', label: 'Day', type: 'date', required: true, aliases: ['harvestedon', 'date', 'day', 'fecha', 'dia'] },
+    { key: 'freshKg', label: 'Fresh mass', type: 'number', required: true, quantity: 'mass', aliases: ['freshkg', 'fresh', 'mass', 'weight', 'kg', 'lb', 'peso', 'pesofresco'] },
+    { key: 'marketableKg', label: 'Marketable mass', type: 'number', required: false, quantity: 'mass', aliases: ['marketablekg', 'marketable', 'comercial', 'pesocomercial', 'comercializable', 'pesocomercializable'] },
+    { key: 'count', label: 'Count', type: 'integer', required: false, aliases: ['count', 'fruits', 'number', 'cantidad', 'frutos', 'unidades'] },
     { key: 'notes', label: 'Notes', type: 'text', required: false, aliases: ['notes', 'note', 'comment', 'notas'] },
   ],
   'weather-days': [
-    { key: 'day', label: 'Day', type: 'date', required: true, aliases: ['day', 'date', 'fecha'] },
-    { key: 'tMinC', label: 'Minimum temperature', type: 'number', required: true, quantity: 'temperature', aliases: ['tminc', 'tmin', 'min', 'mintemp', 'minimum'] },
-    { key: 'tMaxC', label: 'Maximum temperature', type: 'number', required: true, quantity: 'temperature', aliases: ['tmaxc', 'tmax', 'max', 'maxtemp', 'maximum'] },
+    { key: 'day', label: 'Day', type: 'date', required: true, aliases: ['day', 'date', 'fecha', 'dia'] },
+    { key: 'tMinC', label: 'Minimum temperature', type: 'number', required: true, quantity: 'temperature', aliases: ['tminc', 'tmin', 'min', 'mintemp', 'minimum', 'minima', 'tempmin', 'temperaturaminima'] },
+    { key: 'tMaxC', label: 'Maximum temperature', type: 'number', required: true, quantity: 'temperature', aliases: ['tmaxc', 'tmax', 'max', 'maxtemp', 'maximum', 'maxima', 'tempmax', 'temperaturamaxima'] },
     { key: 'rainMm', label: 'Rain', type: 'number', required: false, quantity: 'length-small', aliases: ['rainmm', 'rain', 'precip', 'precipitation', 'lluvia'] },
-    { key: 'rhMinPct', label: 'Humidity min (%)', type: 'number', required: false, aliases: ['rhminpct', 'rhmin', 'humiditymin'] },
-    { key: 'rhMaxPct', label: 'Humidity max (%)', type: 'number', required: false, aliases: ['rhmaxpct', 'rhmax', 'humiditymax'] },
-    { key: 'windSpeedMs', label: 'Wind at 2 m (m/s)', type: 'number', required: false, aliases: ['windspeedms', 'wind', 'windspeed', 'viento'] },
-    { key: 'sunshineHours', label: 'Sunshine hours', type: 'number', required: false, aliases: ['sunshinehours', 'sunshine', 'sun'] },
+    { key: 'rhMinPct', label: 'Humidity min (%)', type: 'number', required: false, aliases: ['rhminpct', 'rhmin', 'humiditymin', 'hrmin', 'humedadmin', 'humedadminima'] },
+    { key: 'rhMaxPct', label: 'Humidity max (%)', type: 'number', required: false, aliases: ['rhmaxpct', 'rhmax', 'humiditymax', 'hrmax', 'humedadmax', 'humedadmaxima'] },
+    { key: 'windSpeedMs', label: 'Wind at 2 m (m/s)', type: 'number', required: false, aliases: ['windspeedms', 'wind', 'windspeed', 'viento', 'velocidaddelviento', 'vientoa2m'] },
+    { key: 'sunshineHours', label: 'Sunshine hours', type: 'number', required: false, aliases: ['sunshinehours', 'sunshine', 'sun', 'horasdesol', 'insolacion'] },
   ],
 };
 
@@ -123,9 +123,12 @@ export interface DateDetection {
 
 /** Tries each format on the samples; a format is a candidate only if every sample fits it. */
 export function detectDateFormat(samples: string[]): DateDetection {
-  const values = samples.map((s) => s.trim()).filter(Boolean);
+  const formats: DateFormat[] = ['iso', 'dmy', 'mdy'];
+  // A value no format reads ("ayer", "31/04/2027") says nothing about the file's format: it is left
+  // out here and shows up as that row's own problem, with its line, once a format is chosen.
+  const values = samples.map((s) => s.trim()).filter((v) => v && formats.some((f) => parseDateParts(v, f) !== null));
   const fits = (f: DateFormat) => values.length > 0 && values.every((v) => parseDateParts(v, f) !== null);
-  const candidates = (['iso', 'dmy', 'mdy'] as DateFormat[]).filter(fits);
+  const candidates = formats.filter(fits);
   const ambiguous = candidates.includes('dmy') && candidates.includes('mdy');
   return { format: ambiguous ? null : (candidates[0] ?? null), ambiguous, candidates };
 }
@@ -189,7 +192,8 @@ export function parseInstant(value: string, format: DateFormat, offsetMinutes: n
 /**
  * What is wrong with a row, as a code the client words in the reader's language (`params` fill
  * in the words); `reason` keeps the same message in English for logs, the API and older clients.
- * Errors found by the server's record schema have no code (their `reason` is the schema's message).
+ * Errors found by the server's record schema are `invalidValue` with the issue's facts (`reason` is
+ * the schema's own message) and `column` the record's field key.
  */
 export type RowErrorCode =
   | 'missingColumn'
@@ -201,7 +205,14 @@ export type RowErrorCode =
   | 'notDate'
   | 'notDateTime'
   | 'unknownPlot'
-  | 'outsideTrial';
+  | 'outsideTrial'
+  /** The server's record schema refused a value: `issue` has zod's facts, `reason` the schema's English message. */
+  | 'invalidValue'
+  | 'notRecord'
+  | 'nulCharacter';
+
+/** What the client needs to word a schema issue itself (as the server's `validation_failed` details carry). */
+export type RowIssue = Record<string, string | number | boolean> & { code: string };
 
 export interface RowError {
   /** 1-based line in the file, counting the header as line 1. */
@@ -210,6 +221,7 @@ export interface RowError {
   reason: string;
   code?: RowErrorCode;
   params?: Record<string, string | number>;
+  issue?: RowIssue;
 }
 
 export interface ImportOptions {

@@ -85,7 +85,14 @@ describe('error reasons', () => {
     // Closed → draft is not a transition the product allows (server/services/trials.service.ts allowedTransitions).
     const back = await a.post(`/api/trials/${trial.id}/status`, { status: 'draft' });
     expect(back.status).toBe(409);
-    expect(back.body.error).toMatchObject({ code: 'conflict', reason: 'status_change_invalid', params: { from: 'closed', to: 'draft' } });
+    // The refusal names the case (closed → draft) so the page can say why and what to do, in both languages.
+    expect(back.body.error).toMatchObject({ code: 'conflict', reason: 'status_closed_to_draft', params: { from: 'closed', to: 'draft' } });
+    expect(enCommon.apiErrors.reasons.status_closed_to_draft).toMatch(/closed trial cannot go straight back to draft\. Reopen it first/);
+    expect(esCommon.apiErrors.reasons.status_closed_to_draft).toMatch(/ensayo cerrado no puede volver directamente a borrador\. Primero reábrelo/);
+    // …and the advice holds: reopened (active), the trial may go back to draft, then on again.
+    expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'active' })).status).toBe(200);
+    expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'draft' })).body.data.status).toBe('draft');
+    expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'closed' })).status).toBe(200);
     const closed = await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plots[0]!.id, occurredAt: '2026-06-02T07:00:00Z', kind: 'surface', volumeL: 3 });
     expect(closed.status).toBe(409);
     expect(closed.body.error.reason).toBe('trial_closed');

@@ -37,6 +37,15 @@ describe('POST /api/trials/:trialId/import', () => {
     expect(res.body.error.message).toMatch(/3 problems found: nothing was imported/);
     expect(res.body.error.details.total).toBe(3);
     expect(res.body.error.details.rows.map((r: { line: number }) => r.line)).toEqual([3, 4, 5]);
+    // Every problem travels as a code the client words in the reader's language; a value the
+    // record schema refuses carries zod's issue facts and the record's field as its column.
+    expect(res.body.error).toMatchObject({ reason: 'import_rows_invalid', params: { count: 3 } });
+    expect(res.body.error.details.rows.map((r: { code?: string }) => r.code)).toEqual(['unknownPlot', 'invalidValue', 'outsideTrial']);
+    expect(res.body.error.details.rows[1]).toMatchObject({
+      column: 'volumeL',
+      reason: 'Volume must be more than zero.',
+      issue: { code: 'too_small', origin: 'number', minimum: 0, inclusive: false },
+    });
     expect(await count('water_events', trial.id)).toBe(0);
   });
 
@@ -150,6 +159,7 @@ describe('POST /api/trials/:trialId/import', () => {
       [5, 'plot'],
       [6, 'notes'],
     ]);
+    expect(res.body.error.details.rows.map((r: { code?: string }) => r.code)).toEqual(['notRecord', 'notRecord', 'unknownPlot', 'nulCharacter']);
     expect(await count('water_events', trial.id)).toBe(0);
   });
 

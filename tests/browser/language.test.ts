@@ -35,6 +35,11 @@ describe('language', () => {
     const { page, baseUrl } = env;
     await page.goto(`${baseUrl}/sign-in`);
     await expect(page.evaluate(() => document.documentElement.lang)).resolves.toBe('en');
+    // The sign-in form checks with the shared schema (shared/schemas/auth.ts signInInputSchema), in its own words in English…
+    const signInForm = page.getByRole('form', { name: 'Sign in' });
+    await signInForm.getByRole('button', { name: 'Sign in' }).click();
+    await signInForm.getByText('Enter a valid e-mail address.').waitFor();
+    await signInForm.getByText('Enter your password.').waitFor();
     await page.getByLabel('Language').selectOption('es');
     await page.getByText('Seepwise compara ollas de barro enterradas').waitFor();
     await expect(page.evaluate(() => document.documentElement.lang)).resolves.toBe('es');
@@ -43,6 +48,18 @@ describe('language', () => {
     // A reload keeps the device's choice.
     await page.reload();
     await page.getByText('Seepwise compara ollas de barro enterradas').waitFor();
+
+    // …and in Spanish, including the schema's length limit on the password (max 200), which a hand-made check would not know.
+    const form = page.getByRole('form', { name: 'Iniciar sesión' });
+    await form.getByRole('button', { name: 'Iniciar sesión' }).click();
+    await form.getByText('Escribe una dirección de correo válida.').waitFor();
+    await form.getByText('Escribe tu contraseña.').waitFor();
+    await form.getByLabel('Correo electrónico').fill('ana@example.test');
+    await form.getByLabel('Contraseña').fill('x'.repeat(201));
+    await form.getByRole('button', { name: 'Iniciar sesión' }).click();
+    await form.getByText('Usa como máximo 200 caracteres.').waitFor();
+    await expect(form.getByText('Escribe una dirección de correo válida.').count()).resolves.toBe(0);
+    await env.screenshot('language-sign-in-schema-es');
   });
 
   it('signs up in Spanish, switches to English from the account, and an English account stays English in a Spanish browser', async () => {

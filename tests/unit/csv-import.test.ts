@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { detectDateFormat, guessMapping, guessUnit, normaliseRows, parseInstant } from '@shared/import/csv-import';
+import { detectDateFormat, guessMapping, guessUnit, importFields, importKinds, normaliseRows, parseInstant } from '@shared/import/csv-import';
+import esImport from '@/locales/es/import.json';
 
 describe('detectDateFormat', () => {
   it.each([
@@ -12,6 +13,19 @@ describe('detectDateFormat', () => {
     const d = detectDateFormat(samples);
     expect(d.format).toBe(format);
     expect(d.ambiguous).toBe(ambiguous);
+  });
+
+  it('reads the format from the dates it can read; an unreadable one is that row’s problem, with its line', () => {
+    const d = detectDateFormat(['2027-05-03 07:00', 'ayer', '2027-05-04 07:00']);
+    expect(d).toMatchObject({ format: 'iso', ambiguous: false });
+    const headers = ['fecha', 'parcela', 'tipo', 'litros'];
+    const rows = [
+      ['2027-05-03 07:00', 'A1', 'olla', '2'],
+      ['ayer', 'A1', 'olla', '2'],
+    ];
+    const r = normaliseRows(rows, { kind: 'water-events', mapping: guessMapping(headers, 'water-events'), units: {}, dateFormat: d.format!, offsetMinutes: 0, headers });
+    expect(r.records).toHaveLength(1);
+    expect(r.errors).toEqual([expect.objectContaining({ line: 3, column: 'fecha', code: 'notDateTime', params: { value: 'ayer', field: 'occurredAt' } })]);
   });
 
   it('refuses impossible days (31 April, 29 February 2027)', () => {
@@ -45,6 +59,17 @@ describe('guessMapping and guessUnit', () => {
     expect(guessUnit('Volume (gal)', 'volume')).toBe('us');
     expect(guessUnit('Tmax (°F)', 'temperature')).toBe('us');
     expect(guessUnit('litres', 'volume')).toBe('metric');
+  });
+
+  it('maps Spanish headers: the wizard’s own Spanish field names, and common ones like "litros" or "abono"', () => {
+    const es = esImport.fields as Record<string, string>;
+    for (const kind of importKinds) {
+      const fields = importFields[kind];
+      const mapping = guessMapping(fields.map((f) => es[f.key]!), kind);
+      expect(mapping, kind).toEqual(Object.fromEntries(fields.map((f, i) => [f.key, i])));
+    }
+    expect(guessMapping(['fecha', 'parcela', 'riego', 'litros', 'abono', 'observaciones'], 'water-events')).toEqual({ occurredAt: 0, plotLabel: 1, kind: 2, volumeL: 3, fertiliser: 4 });
+    expect(guessUnit('Galones', 'volume')).toBe('us');
   });
 });
 

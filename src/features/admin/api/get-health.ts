@@ -6,7 +6,8 @@ export interface AdminHealth {
   database: { status: string; latencyMs: number; version: string; migrationsApplied: number };
   counts: { users: number; cohorts: number; activeSessions: number };
   process: { uptimeS: number; rssMb: number; heapUsedMb: number; node: string };
-  mail: { mode: string };
+  /** Where mail goes: the development sink (the Outbox tab) or a real SMTP server. */
+  mail: { mode: 'sink' | 'smtp' };
 }
 
 export function getHealth(): Promise<AdminHealth> {

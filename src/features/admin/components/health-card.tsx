@@ -48,7 +48,7 @@ export function HealthCard() {
             <span aria-hidden="true" className={`inline-block size-3 rounded-full ${health.data.database.status === 'up' ? 'bg-sage-500' : 'bg-red-700'}`} />
             {health.data.database.status === 'up'
               ? t(($) => $.health.dbUp, { ms: formatNumber(health.data.database.latencyMs, 0) })
-              : t(($) => $.health.dbState, { status: health.data.database.status, ms: formatNumber(health.data.database.latencyMs, 0) })}
+              : t(($) => $.health.dbState, { ms: formatNumber(health.data.database.latencyMs, 0) })}
           </p>
           {/* One <dl> of <div>-wrapped pairs (a <dl> allows no deeper nesting); two columns by CSS. */}
           <dl className="gap-x-8 sm:columns-2">
@@ -60,7 +60,7 @@ export function HealthCard() {
             <Fact label={t(($) => $.health.uptime)} value={uptime(health.data.process.uptimeS, t)} />
             <Fact label={t(($) => $.health.memory)} value={`${formatNumber(health.data.process.rssMb, 0)} / ${formatNumber(health.data.process.heapUsedMb, 0)} MB`} />
             <Fact label={t(($) => $.health.node)} value={health.data.process.node} />
-            <Fact label={t(($) => $.health.mail)} value={health.data.mail.mode} />
+            <Fact label={t(($) => $.health.mail)} value={t(($) => $.health.mailModes[health.data.mail.mode])} />
           </dl>
           <p className="text-xs text-ink-muted">{t(($) => $.health.checked, { when: formatDateTime(new Date(health.dataUpdatedAt).toISOString()) })}</p>
         </>

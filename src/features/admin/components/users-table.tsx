@@ -205,8 +205,9 @@ export function UsersTable({ params, onParamsChange, currentUserId }: UsersTable
       {users.data && total > 0 ? (
         <nav aria-label={t(($) => $.users.pages)} className="flex flex-wrap items-center justify-between gap-3">
           <p id="accounts-range" className="text-sm text-ink-muted">
-            {t(($) => $.users.range, { first: formatNumber(first, 0), last: formatNumber(last, 0), count: total })}
-            {params.q ? t(($) => $.users.rangeMatching, { q: params.q }) : ''}
+            {params.q
+              ? t(($) => $.users.rangeMatching, { first: formatNumber(first, 0), last: formatNumber(last, 0), count: total, q: params.q })
+              : t(($) => $.users.range, { first: formatNumber(first, 0), last: formatNumber(last, 0), count: total })}
           </p>
           <div className="flex gap-2">
             <Button variant="secondary" disabled={params.page <= 1} onClick={() => onParamsChange({ ...params, page: params.page - 1 })}>

@@ -5,6 +5,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextareaField } from '@/components/ui/field';
 import { ApiRequestError } from '@/lib/api-client';
+import { issueMessage } from '@/lib/validation-messages';
 import { useCreateExclusion } from '../api/create-exclusion';
 
 export interface ExcludeTarget {
@@ -48,7 +49,11 @@ export function ExcludeDialog({ cohortId, target, onClose }: { cohortId: string;
     if (!target) return;
     const parsed = createExclusionInputSchema.safeParse({ trialId: target.trialId, reason });
     if (!parsed.success) {
-      setFieldError(parsed.error.issues.find((i) => i.path[0] === 'reason')?.message ?? t(($) => $.exclude.reasonMissing));
+      // The schema's rule, in the reader's words (its own message is English).
+      const issue = parsed.error.issues.find((i) => i.path[0] === 'reason');
+      setFieldError(
+        !issue ? t(($) => $.exclude.reasonMissing) : issue.code === 'too_small' ? t(($) => $.exclude.reasonTooShort, { count: Number(issue.minimum) }) : issueMessage(issue),
+      );
       return;
     }
     setFieldError(undefined);

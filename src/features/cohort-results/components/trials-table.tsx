@@ -236,8 +236,8 @@ export function ExclusionsList({ results }: { results: CohortResults }) {
     <ul className="space-y-2">
       {results.exclusions.map((x) => (
         <li key={x.trialId} className="rounded-lg border border-sand-200 bg-white px-3 py-2 text-sm">
-          <span className="font-medium">{labels[x.trialId] ?? x.pseudonym}</span>, {tr(($) => $.table.excludedOn, { date: formatDate(x.createdAt) })}
-          {x.excludedByMe ? tr(($) => $.table.byYou) : tr(($) => $.table.byLead)}: <q>{x.reason}</q>
+          <span className="font-medium">{labels[x.trialId] ?? x.pseudonym}</span>,{' '}
+          {x.excludedByMe ? tr(($) => $.table.excludedByYou, { date: formatDate(x.createdAt) }) : tr(($) => $.table.excludedByLead, { date: formatDate(x.createdAt) })}: <q>{x.reason}</q>
         </li>
       ))}
     </ul>

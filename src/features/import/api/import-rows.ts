@@ -26,14 +26,20 @@ export function sendImport(trialId: string, kind: ImportKind, rows: NormalisedRo
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(e.loaded / e.total);
     xhr.onerror = () => reject(new ApiRequestError(0, 'network_error', t(($) => $.connectionDropped)));
     xhr.onload = () => {
-      let body: { data?: ImportResult; error?: { code: string; message: string; details?: unknown } } = {};
+      let body: { data?: ImportResult; error?: { code: string; message: string; details?: unknown; reason?: string; params?: Record<string, string | number> } } = {};
       try {
         body = JSON.parse(xhr.responseText);
       } catch {
         /* not JSON */
       }
       if (xhr.status >= 200 && xhr.status < 300 && body.data) resolve(body.data);
-      else reject(new ApiRequestError(xhr.status, body.error?.code ?? 'http_error', body.error?.message ?? t(($) => $.failedStatus, { status: xhr.status }), body.error?.details));
+      else
+        reject(
+          new ApiRequestError(xhr.status, body.error?.code ?? 'http_error', body.error?.message ?? t(($) => $.failedStatus, { status: xhr.status }), body.error?.details, {
+            reason: body.error?.reason,
+            params: body.error?.params,
+          }),
+        );
     };
     xhr.send(JSON.stringify({ kind, fileName, rows }));
   });

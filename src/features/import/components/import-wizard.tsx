@@ -10,14 +10,19 @@ import {
   normaliseRows,
   type ColumnMapping,
   type DateFormat,
+  type ImportField,
   type ImportKind,
+  type NormalisedRow,
   type RowError,
 } from '@shared/import/csv-import';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
-import { formatDate, formatNumber } from '@/lib/format';
+import { schemaMessageKeys as logsSchemaKeys } from '@/features/logs/components/schema-message-keys';
+import { formatDate, formatDateTime, formatNumber } from '@/lib/format';
+import { issueMessage } from '@/lib/validation-messages';
 import type importEn from '@/locales/en/import.json';
+import logsEn from '@/locales/en/logs.json';
 import { sendImport, serverRowErrors, useAfterImport, type ImportResult } from '../api/import-rows';
 import type { WorkerMessage, WorkerWarning } from '../worker/parse-csv.worker';
 
@@ -38,8 +43,12 @@ const fieldKeys: Record<FieldKey, true> = {
 };
 const lowerKeys: Record<LowerKey, true> = { volumeL: true, freshKg: true, marketableKg: true, tMinC: true, tMaxC: true, rainMm: true };
 
-/** A row problem in the reader's language: by its code (shared/import, the server), else the English reason as sent. */
-export function rowErrorText(t: TFunction<'import'>, e: RowError): string {
+/**
+ * A row problem in the reader's language: by its code (shared/import, the server); a value the
+ * server's record schema refused by the schema's own words where the logs forms have them, else
+ * by the issue's facts (too small, not one of the choices…); the English reason only as a last resort.
+ */
+export function rowErrorText(t: TFunction<'import'>, tl: TFunction<'logs'>, e: RowError): string {
   const p = e.params ?? {};
   const value = String(p.value ?? '');
   const field = fieldLabel(t, String(p.field ?? ''), e.column);
@@ -62,15 +71,38 @@ export function rowErrorText(t: TFunction<'import'>, e: RowError): string {
       return t(($) => $.rowErrors.notDateTime, { value });
     case 'unknownPlot':
       return t(($) => $.rowErrors.unknownPlot, { plot: String(p.plot ?? ''), plots: String(p.plots ?? '') });
-    case 'outsideTrial':
-      return t(($) => $.rowErrors.outsideTrial, {
-        day: formatDate(String(p.day ?? '')),
-        planted: formatDate(String(p.planted ?? '')),
-        ends: p.ends ? t(($) => $.rowErrors.ends, { date: formatDate(String(p.ends)) }) : '',
-      });
+    case 'outsideTrial': {
+      const facts = { day: formatDate(String(p.day ?? '')), planted: formatDate(String(p.planted ?? '')) };
+      return p.ends ? t(($) => $.rowErrors.outsideTrialEnds, { ...facts, ends: formatDate(String(p.ends)) }) : t(($) => $.rowErrors.outsideTrial, facts);
+    }
+    case 'notRecord':
+      return t(($) => $.rowErrors.notRecord);
+    case 'nulCharacter':
+      return t(($) => $.rowErrors.nulCharacter);
+    case 'invalidValue': {
+      const own = Object.hasOwn(logsSchemaKeys, e.reason) ? logsSchemaKeys[e.reason] : undefined;
+      if (own) return tl(($) => $.schema[own]);
+      return e.issue ? issueMessage(e.issue) : e.reason;
+    }
     default:
       return e.reason;
   }
+}
+
+type LogsEn = typeof logsEn;
+const has = <T extends object>(o: T, k: unknown): k is keyof T => typeof k === 'string' && Object.hasOwn(o, k);
+
+/** A previewed value as the reader reads it: dates and numbers in their language, codes by name (stored as SI values and codes). */
+function previewCell(tl: TFunction<'logs'>, f: ImportField, v: NormalisedRow[string] | undefined): string {
+  if (v === undefined || v === null) return '—';
+  if (typeof v === 'number') return formatNumber(v, 3);
+  if (typeof v === 'boolean') return v ? tl(($) => $.yes) : tl(($) => $.no);
+  if (f.type === 'datetime') return formatDateTime(v);
+  if (f.type === 'date') return formatDate(v);
+  if (f.key === 'kind' && has<LogsEn['waterKinds']>(logsEn.waterKinds, v)) return tl(($) => $.waterKinds[v]);
+  if (f.key === 'source' && has<LogsEn['sources']>(logsEn.sources, v)) return tl(($) => $.sources[v]);
+  if (f.key === 'method' && has<LogsEn['methods']>(logsEn.methods, v)) return tl(($) => $.methods[v]);
+  return v;
 }
 
 const warningText = (t: TFunction<'import'>, w: WorkerWarning) => (w === 'oneColumn' ? t(($) => $.oneColumn) : w);
@@ -98,14 +130,22 @@ function Progress({ label, fraction }: { label: string; fraction: number }) {
   );
 }
 
+/** The column a problem sits in: the file's header as read, or for the server's checks the record's field, worded. */
+function columnText(t: TFunction<'import'>, e: RowError): string {
+  if (e.code === 'missingColumn') return fieldLabel(t, String(e.params?.field ?? ''), e.column);
+  if (e.code === 'unknownPlot') return fieldLabel(t, 'plotLabel', e.column);
+  if (e.code === 'invalidValue' || e.code === 'nulCharacter' || e.code === 'outsideTrial') return fieldLabel(t, e.column, e.column);
+  return e.column;
+}
+
 function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
   const { t } = useTranslation('import');
+  const { t: tl } = useTranslation('logs');
   return (
     <div className="max-h-72 overflow-auto rounded-card border border-red-200 bg-white">
       <table className="w-full text-sm">
         <caption className="px-3 pt-2 text-left font-semibold text-red-900">
-          {t(($) => $.problems, { count: total })}
-          {total > errors.length ? t(($) => $.firstShown, { n: formatNumber(errors.length, 0) }) : ''}
+          {total > errors.length ? t(($) => $.problemsFirstShown, { count: total, n: formatNumber(errors.length, 0) }) : t(($) => $.problems, { count: total })}
         </caption>
         <thead className="text-left text-ink-muted">
           <tr>
@@ -124,8 +164,8 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
           {errors.map((e, i) => (
             <tr key={i} className="border-t border-sand-100">
               <td className="num px-3 py-1">{e.line}</td>
-              <td className="px-3 py-1">{(e.code === 'missingColumn' ? fieldLabel(t, String(e.params?.field ?? ''), e.column) : e.column) || '—'}</td>
-              <td className="px-3 py-1">{rowErrorText(t, e)}</td>
+              <td className="px-3 py-1">{columnText(t, e) || '—'}</td>
+              <td className="px-3 py-1">{rowErrorText(t, tl, e)}</td>
             </tr>
           ))}
         </tbody>
@@ -141,6 +181,8 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
  */
 export function ImportWizard({ trialId, userId }: { trialId: string; userId: string }) {
   const { t } = useTranslation('import');
+  // The preview and the problem list word values and schema messages from `logs`.
+  const { t: tl } = useTranslation('logs');
   const [kind, setKind] = useState<ImportKind>('water-events');
   const [parseProgress, setParseProgress] = useState<number | null>(null);
   const [sendProgress, setSendProgress] = useState<number | null>(null);
@@ -282,8 +324,10 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
       {parsed ? (
         <div className="space-y-4">
           <p className="text-sm">
-            <strong>{parsed.fileName}</strong>: {t(($) => $.summary, { rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
-            {parsed.encoding !== 'utf-8' ? t(($) => $.latin1) : '.'}
+            <strong>{parsed.fileName}</strong>:{' '}
+            {parsed.encoding !== 'utf-8'
+              ? t(($) => $.summaryLatin1, { count: parsed.rows.length, rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })
+              : t(($) => $.summary, { count: parsed.rows.length, rows: formatNumber(parsed.rows.length, 0), columns: formatNumber(parsed.headers.length, 0) })}
           </p>
           {parsed.warnings.map((w) => (
             <Alert key={w} tone="warning">
@@ -347,7 +391,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               {normalised.errors.length ? (
                 <ErrorList errors={normalised.errors.slice(0, 300)} total={normalised.errors.length} />
               ) : (
-                <Alert tone="success">{t(($) => $.allReady, { rows: formatNumber(normalised.records.length, 0) })}</Alert>
+                <Alert tone="success">{t(($) => $.allReady, { count: normalised.records.length, rows: formatNumber(normalised.records.length, 0) })}</Alert>
               )}
               <div className="relative overflow-x-auto">
                 <table className="w-full text-sm">
@@ -371,7 +415,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
                         <td className="num px-2 py-1">{r.line}</td>
                         {fields.filter((f) => mapping[f.key] !== undefined).map((f) => (
                           <td key={f.key} className="px-2 py-1">
-                            {r[f.key] === undefined || r[f.key] === null ? '—' : typeof r[f.key] === 'number' ? formatNumber(r[f.key] as number, 3) : String(r[f.key])}
+                            {previewCell(tl, f, r[f.key])}
                           </td>
                         ))}
                       </tr>
@@ -385,12 +429,15 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
           {serverErrors ? <ErrorList errors={serverErrors.rows} total={serverErrors.total} /> : null}
           {result ? (
             <Alert tone="success">
-              {t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
-              {result.alreadyImported ? t(($) => $.skipped, { n: formatNumber(result.alreadyImported, 0) }) : ''}.
+              {result.alreadyImported && !result.inserted
+                ? t(($) => $.allAlreadyImported, { count: result.alreadyImported, n: formatNumber(result.alreadyImported, 0) })
+                : result.alreadyImported
+                  ? t(($) => $.importedSkipped, { count: result.inserted, n: formatNumber(result.inserted, 0), skipped: formatNumber(result.alreadyImported, 0) })
+                  : t(($) => $.imported, { count: result.inserted, n: formatNumber(result.inserted, 0) })}
             </Alert>
           ) : null}
           <Button onClick={() => void send()} disabled={!normalised || normalised.errors.length > 0 || normalised.records.length === 0 || sendProgress !== null}>
-            {normalised?.records.length ? t(($) => $.importRows, { n: formatNumber(normalised.records.length, 0) }) : t(($) => $.importNone)}
+            {normalised?.records.length ? t(($) => $.importRows, { count: normalised.records.length, n: formatNumber(normalised.records.length, 0) }) : t(($) => $.importNone)}
           </Button>
         </div>
       ) : null}

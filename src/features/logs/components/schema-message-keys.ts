@@ -11,4 +11,6 @@ export const schemaMessageKeys: Readonly<Record<string, Key>> = {
   'Write what you saw.': 'text',
   'Use a date and time like 2027-05-14T07:30:00Z.': 'dateTime',
   'Use a date like 2027-05-14.': 'date',
+  'The minimum temperature is above the maximum.': 'tMinAboveMax',
+  'Minimum humidity is above the maximum.': 'rhMinAboveMax',
 };
