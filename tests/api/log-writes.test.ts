@@ -5,6 +5,7 @@
  * rules are DEVELOPERS.md "Requests, errors, permissions"; the within-trial rule is
  * server/services/logs.service.ts; auditing shared or closed trials is server/services/audit.ts.
  */
+import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makePairedTrial } from '../helpers/notebook-fixtures';
 import { sqlStatements, statementHead } from '../helpers/sql-statements';
@@ -40,7 +41,7 @@ async function sharedTrial() {
   return { a, lead, observer, ...fx };
 }
 
-const rows = async (table: string, trialId: string) => ((await t.ds.query(`SELECT count(*)::int AS n FROM ${table} WHERE trial_id = $1`, [trialId])) as { n: number }[])[0]!.n;
+const count = async (table: string, trialId: string) => ((await t.ds.query(`SELECT count(*)::int AS n FROM ${table} WHERE trial_id = $1`, [trialId])) as { n: number }[])[0]!.n;
 const audits = async (trialId: string) =>
   (await t.ds.query(`SELECT action, entity_type, entity_id, actor_id, changes FROM audit_entries WHERE trial_id = $1 AND entity_type = 'water_event' ORDER BY at`, [trialId])) as {
     action: string;
@@ -109,8 +110,8 @@ describe('a log write', () => {
     }
     expect((await stranger.post('/api/trials/not-a-uuid/water-events', body)).status).toBe(404);
     expect((await stranger.post('/api/trials/00000000-0000-4000-8000-000000000000/water-events', body)).status).toBe(404);
-    expect(await rows('water_events', trial.id)).toBe(0);
-    expect(await rows('harvests', trial.id)).toBe(0);
+    expect(await count('water_events', trial.id)).toBe(0);
+    expect(await count('harvests', trial.id)).toBe(0);
   });
 
   it('refuses a plot of another trial, a pot of another plot, a date outside the trial and a closed trial, with reason codes, and writes nothing', async () => {
@@ -149,14 +150,14 @@ describe('a log write', () => {
     expect((await a.post(`/api/trials/${trial.id}/moisture-readings`, { plotId: olla[0]!.id, takenAt: '2026-08-31T23:00:00Z', method: 'vwc', depthCm: 10, value: 20 })).status).toBe(201);
     // An observation names no plot, or one of this trial's.
     expect((await refusal('observations', { plotId: other.plots[0]!.id, observedAt: '2026-06-01T07:00:00Z', text: 'Wilting' })).reason).toBe('plot_not_in_trial');
-    expect(await rows('water_events', trial.id)).toBe(0);
-    expect(await rows('observations', trial.id)).toBe(0);
+    expect(await count('water_events', trial.id)).toBe(0);
+    expect(await count('observations', trial.id)).toBe(0);
 
     expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'closed' })).status).toBe(200);
     const closed = await a.post(`/api/trials/${trial.id}/water-events`, base);
     expect(closed.status).toBe(409);
     expect(closed.body.error).toMatchObject({ code: 'conflict', reason: 'trial_closed' });
-    expect(await rows('water_events', trial.id)).toBe(0);
+    expect(await count('water_events', trial.id)).toBe(0);
   });
 
   it('audits a write to a shared trial once, with the input as sent, and bumps the trial’s data version once', async () => {
@@ -182,7 +183,7 @@ describe('a log write', () => {
     expect((await a.post(`/api/trials/${trial.id}/water-events`, body)).status).toBe(200);
     expect(await audits(trial.id)).toEqual([expected]);
     expect(await dataVersion(trial.id)).toBe(v0 + 1);
-    expect(await rows('water_events', trial.id)).toBe(1);
+    expect(await count('water_events', trial.id)).toBe(1);
     // A refused write bumps nothing.
     expect((await a.post(`/api/trials/${trial.id}/water-events`, { ...body, idempotencyKey: undefined, occurredAt: '2027-06-02T07:00:00Z' })).status).toBe(400);
     expect(await dataVersion(trial.id)).toBe(v0 + 1);
@@ -208,7 +209,7 @@ describe('a log write', () => {
     const closed = await a.post(`/api/trials/${trial.id}/water-events`, body);
     expect(closed.status).toBe(409);
     expect(closed.body.error.reason).toBe('trial_closed');
-    expect(await rows('water_events', trial.id)).toBe(1);
+    expect(await count('water_events', trial.id)).toBe(1);
   });
 
   it('keeps one record when the same key arrives twice at once', async () => {
@@ -218,6 +219,36 @@ describe('a log write', () => {
     const answers = await Promise.all(Array.from({ length: 6 }, () => a.post(`/api/trials/${trial.id}/water-events`, body)));
     expect(answers.map((r) => r.status).sort()).toEqual([200, 200, 200, 200, 200, 201]);
     expect(new Set(answers.map((r) => r.body.data.id)).size).toBe(1);
-    expect(await rows('water_events', trial.id)).toBe(1);
+    expect(await count('water_events', trial.id)).toBe(1);
+  });
+
+  it('answers with the record another request is committing under the same key (the insert waits for it, then reads it)', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    const other = new pg.Client({ connectionString: t.databaseUrl });
+    await other.connect();
+    try {
+      await other.query('BEGIN');
+      const { rows } = await other.query(
+        `INSERT INTO water_events (trial_id, plot_id, occurred_at, kind, volume_l, idempotency_key) VALUES ($1, $2, '2026-06-03T07:00:00Z', 'surface', 4, 'race-key-00002') RETURNING id`,
+        [trial.id, plots[0]!.id],
+      );
+      const pending = a.post(`/api/trials/${trial.id}/water-events`, { plotId: plots[0]!.id, occurredAt: '2026-06-03T07:00:00Z', kind: 'surface', volumeL: 4, idempotencyKey: 'race-key-00002' }).then((r) => r);
+      // Wait (polling, not timing) until the request's INSERT waits for the open transaction's row.
+      let waiting = 0;
+      for (let i = 0; i < 500 && waiting === 0; i++) {
+        waiting = ((await t.ds.query(`SELECT count(*)::int AS n FROM pg_stat_activity WHERE datname = current_database() AND wait_event_type = 'Lock'`)) as { n: number }[])[0]!.n;
+        if (!waiting) await new Promise((r) => setTimeout(r, 20));
+      }
+      expect(waiting).toBe(1);
+      await other.query('COMMIT');
+      const res = await pending;
+      expect(res.status).toBe(200);
+      expect(res.body.meta.created).toBe(false);
+      expect(res.body.data.id).toBe(rows[0].id);
+      expect(await count('water_events', trial.id)).toBe(1);
+    } finally {
+      await other.end();
+    }
   });
 });
