@@ -173,11 +173,14 @@ function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, user
   const p = (v: unknown) => `$${params.push(v)}`;
   const fields = Object.keys(cfg.columns).filter((f) => input[f] !== undefined);
   const cols = ['trial_id', 'entered_by', ...fields.map((f) => cfg.columns[f]!)];
-  const values = ['$1', '$2', ...fields.map((f) => p(input[f]))];
+  // PostgreSQL has no year 0, which the ISO format allows. Such a day fails the date check (it is before any
+  // planting), so it is never stored; sent as NULL it cannot make the whole statement fail to parse.
+  const storable = (f: string) => !(f === cfg.timeField && /^0000-/.test(String(input[f])));
+  const values = ['$1', '$2', ...fields.map((f) => p(storable(f) ? input[f] : null))];
   const plotId = input.plotId;
   const plotOk = plotId === null || plotId === undefined ? String(!cfg.plotRequired) : `EXISTS (SELECT 1 FROM plots pl WHERE pl.id = ${p(plotId)} AND pl.trial_id = t.id)`;
   const potOk = kind === 'water-events' && input.potId ? `EXISTS (SELECT 1 FROM pots o WHERE o.id = ${p(input.potId)} AND o.plot_id = ${p(plotId ?? null)})` : 'true';
-  // Compared as text, as the day and the trial's dates always were (a year-0 day is refused, not a cast error).
+  // Compared as text, as the day and the trial's dates always were (so a year-0 day is refused, not a cast error).
   const dateOk = `${p(logDay(cfg, input))}::text COLLATE "C" BETWEEN to_char(t.planting_date, 'YYYY-MM-DD') AND to_char(LEAST(t.end_date, ${p(lastOpenDay(opts.now))}::date), 'YYYY-MM-DD')`;
   const key = input.idempotencyKey as string | undefined;
   const keyParam = key ? p(key) : '';

@@ -141,6 +141,9 @@ describe('a log write', () => {
       details: [{ path: 'occurredAt', message: '2026-04-30 is outside this trial (planted 2026-05-01, still running); future dates are refused too.', reason: 'date_outside_trial' }],
     });
     expect((await refusal('harvests', { plotId: olla[0]!.id, harvestedOn: '2026-10-03', freshKg: 1 })).reason).toBe('date_outside_trial');
+    // Year 0 passes the ISO format check; it is outside the trial like any other day (a 400, not a database error).
+    expect((await refusal('water-events', { ...base, occurredAt: '0000-06-01T07:00:00Z' })).reason).toBe('date_outside_trial');
+    expect((await refusal('harvests', { plotId: olla[0]!.id, harvestedOn: '0000-06-01', freshKg: 1 })).reason).toBe('date_outside_trial');
     expect((await a.post(`/api/trials/${trial.id}/harvests`, { plotId: olla[0]!.id, harvestedOn: '2026-10-02', freshKg: 1 })).status).toBe(201);
     // An end date moves the last allowed day.
     expect((await a.patch(`/api/trials/${trial.id}`, { endDate: '2026-08-31' })).status).toBe(200);
