@@ -15,6 +15,13 @@ import { AppError } from '../lib/app-error';
  *   while the check runs (one round trip less before the answer). Only for a handler made with
  *   `respondAfterAccess` (server/http/route.ts; mountRoutes refuses anything else), which sends
  *   nothing of its result unless the check passed, and answers a failed check at once.
+ * - resource with `inStatement`: the handler's own SQL statement applies the same rule (an INSERT
+ *   that writes only where the caller owns the record), so a request that succeeds sends no
+ *   separate check first. Only for a handler made with `writeCheckedInStatement` (route.ts;
+ *   mountRoutes refuses anything else). 401 and malformed ids are answered here as always, and any
+ *   failure before the handler has settled access (a validation error, the statement finding no
+ *   record it may write) is answered only after the usual check: an outsider gets the same 404 as
+ *   with a check up front, never a 400 that would confirm the record exists.
  */
 export type Access =
   | { kind: 'public' }
@@ -22,7 +29,17 @@ export type Access =
   | { kind: 'role'; roles: ('grower' | 'educator' | 'admin')[] }
   | { kind: 'cohort-lead'; param: string }
   | { kind: 'cohort-member'; param: string }
-  | { kind: 'resource'; resource: ResourceKind; param: string; level: 'owner' | 'reader'; concurrent?: true };
+  | { kind: 'resource'; resource: ResourceKind; param: string; level: 'owner' | 'reader'; concurrent?: true; inStatement?: true };
+
+/**
+ * An `inStatement` access check handed to the handler: it sets `settled` once its statement has
+ * shown the caller may write there; until then every failure is answered after `check()`, the
+ * check the rule would have run up front.
+ */
+export interface AccessGate {
+  settled: boolean;
+  check: () => Promise<void>;
+}
 
 /** Resources owned by a grower (filled in by the notebook: garden, trial, plot, pot...). */
 export type ResourceKind = string;
@@ -40,7 +57,13 @@ export const access = {
   educator: { kind: 'role', roles: ['educator', 'admin'] } as Access,
   cohortLead: (param = 'cohortId'): Access => ({ kind: 'cohort-lead', param }),
   cohortMember: (param = 'cohortId'): Access => ({ kind: 'cohort-member', param }),
-  owner: (resource: ResourceKind, param: string): Access => ({ kind: 'resource', resource, param, level: 'owner' }),
+  owner: (resource: ResourceKind, param: string, opts: { inStatement?: boolean } = {}): Access => ({
+    kind: 'resource',
+    resource,
+    param,
+    level: 'owner',
+    ...(opts.inStatement ? { inStatement: true as const } : {}),
+  }),
   reader: (resource: ResourceKind, param: string, opts: { concurrent?: boolean } = {}): Access => ({
     kind: 'resource',
     resource,
@@ -84,6 +107,12 @@ export function authorize(rule: Access, ds: DataSource, resolvers: Record<string
       if (!level || (rule.level === 'owner' && level !== 'owner')) throw AppError.notFound(rule.resource);
       res.locals.accessLevel = level;
     };
+    if (rule.kind === 'resource' && rule.inStatement) {
+      // The handler's statement checks; settleAccess (route.ts) runs `check` if it fails before that.
+      const gate: AccessGate = { settled: false, check };
+      res.locals.accessGate = gate;
+      return next();
+    }
     if (rule.kind === 'resource' && rule.concurrent) {
       // The handler (respondAfterAccess) awaits this before it answers; a failure is answered there.
       const checked = check();

@@ -2,7 +2,7 @@ import multer from 'multer';
 import { listLogsQuerySchema, roundInputSchema, type ListLogsQuery, type LogKind } from '@shared/schemas/logs';
 import type { AppContext } from '../context';
 import { access } from '../http/access';
-import { handle, route, type RouteSpec } from '../http/route';
+import { handle, route, writeCheckedInStatement, type RouteSpec } from '../http/route';
 import { AppError } from '../lib/app-error';
 import { validate } from '../middleware/validate';
 import { logKinds, logsService } from '../services/logs.service';
@@ -49,11 +49,12 @@ export function logRoutes(ctx: AppContext): RouteSpec[] {
       route(
         'post',
         `/trials/:trialId/${kind}`,
-        access.owner('trial', 'trialId'),
+        // The INSERT itself writes only into the caller's own trial (one statement; access.ts `inStatement`).
+        access.owner('trial', 'trialId', { inStatement: true }),
         validate(logKinds[kind].schema),
-        handle(async (req, res) => {
-          const { row, created } = await svc.create(kind, id(req.params.trialId), req.user!.id, req.body);
-          res.status(created ? 201 : 200).json({ data: row, meta: { created } });
+        writeCheckedInStatement(async (req, gate) => {
+          const { row, created } = await svc.create(kind, id(req.params.trialId), req.user!.id, req.body, gate);
+          return { status: created ? 201 : 200, body: { data: row, meta: { created } } };
         }),
       ),
       route(

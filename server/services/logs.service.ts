@@ -16,7 +16,9 @@ import type { AppContext } from '../context';
 import { AppError } from '../lib/app-error';
 import { zodIssues } from '../middleware/validate';
 import { diff, mustAudit, writeAudit } from './audit';
-import { assertTrialWritable } from './trials.service';
+import type { TrialStatus } from '@shared/schemas/trials';
+import type { AccessGate } from '../http/access';
+import { assertTrialWritable, trialClosed } from './trials.service';
 
 type LogInput = WaterEventInput | MoistureReadingInput | HarvestInput | ObservationInput;
 
@@ -85,8 +87,8 @@ function selectList(cfg: LogKindConfig) {
   return `l.id, ${cols.join(', ')}, pl.label AS "plotLabel", u.display_name AS "enteredBy", l.created_at AS "createdAt"`;
 }
 
-function fromClause(cfg: LogKindConfig) {
-  return `FROM ${cfg.table} l LEFT JOIN plots pl ON pl.id = l.plot_id LEFT JOIN users u ON u.id = l.entered_by`;
+function fromClause(cfg: LogKindConfig, source = cfg.table) {
+  return `FROM ${source} l LEFT JOIN plots pl ON pl.id = l.plot_id LEFT JOIN users u ON u.id = l.entered_by`;
 }
 
 type LogRow = Record<string, unknown> & { id: string };
@@ -98,41 +100,120 @@ function presentLog(row: LogRow): LogRow {
   return out;
 }
 
+const plotRequired = () => AppError.validation('Choose a plot.', [{ path: 'plotId', message: 'Choose a plot.', reason: 'plot_required' }]).because('plot_required');
+const plotNotInTrial = () =>
+  AppError.validation('That plot is not part of this trial.', [{ path: 'plotId', message: 'That plot is not part of this trial.', reason: 'plot_not_in_trial' }]).because(
+    'plot_not_in_trial',
+  );
+const potNotInPlot = () =>
+  AppError.validation('That pot does not sit in this plot.', [{ path: 'potId', message: 'That pot does not sit in this plot.', reason: 'pot_not_in_plot' }]).because('pot_not_in_plot');
+
+/** The UTC day a log falls on, as YYYY-MM-DD. */
+function logDay(cfg: LogKindConfig, input: Record<string, unknown>) {
+  const raw = input[cfg.timeField] as string;
+  return cfg.dateOnly ? raw : new Date(raw).toISOString().slice(0, 10);
+}
+
+/** The last day a running trial takes logs for: 36 hours on, so a garden ahead of UTC can log its today. */
+const lastOpenDay = (now: Date) => new Date(now.getTime() + 36 * 3600 * 1000).toISOString().slice(0, 10);
+
+function dateOutsideTrial(cfg: LogKindConfig, day: string, plantingDate: string, endDate: string | null) {
+  const ends = endDate ? `ends ${endDate}` : 'still running';
+  return AppError.validation('The date is outside the trial.', [
+    { path: cfg.timeField, message: `${day} is outside this trial (planted ${plantingDate}, ${ends}); future dates are refused too.`, reason: 'date_outside_trial' },
+  ]).because('date_outside_trial');
+}
+
 /** The log's date must fall within the trial: from planting to the end date (or tomorrow, for an open trial). */
 async function assertWithinTrial(em: EntityManager, trialId: string, cfg: LogKindConfig, input: Record<string, unknown>, now: Date) {
   const [t] = (await em.query('SELECT planting_date, end_date FROM trials WHERE id = $1', [trialId])) as { planting_date: string; end_date: string | null }[];
   if (!t) throw AppError.notFound('Trial');
-  const raw = input[cfg.timeField] as string;
-  const day = cfg.dateOnly ? raw : new Date(raw).toISOString().slice(0, 10);
-  const tomorrow = new Date(now.getTime() + 36 * 3600 * 1000).toISOString().slice(0, 10);
+  const day = logDay(cfg, input);
+  const tomorrow = lastOpenDay(now);
   const last = t.end_date && t.end_date < tomorrow ? t.end_date : tomorrow;
-  if (day < t.planting_date || day > last) {
-    const ends = t.end_date ? `ends ${t.end_date}` : 'still running';
-    throw AppError.validation('The date is outside the trial.', [
-      { path: cfg.timeField, message: `${day} is outside this trial (planted ${t.planting_date}, ${ends}); future dates are refused too.`, reason: 'date_outside_trial' },
-    ]).because('date_outside_trial');
-  }
+  if (day < t.planting_date || day > last) throw dateOutsideTrial(cfg, day, t.planting_date, t.end_date);
 }
 
 async function assertPlotInTrial(em: EntityManager, trialId: string, plotId: unknown, required: boolean) {
   if (plotId === null || plotId === undefined) {
-    if (required) throw AppError.validation('Choose a plot.', [{ path: 'plotId', message: 'Choose a plot.', reason: 'plot_required' }]).because('plot_required');
+    if (required) throw plotRequired();
     return;
   }
   const [p] = (await em.query('SELECT trial_id FROM plots WHERE id = $1', [plotId])) as { trial_id: string }[];
-  if (!p || p.trial_id !== trialId) {
-    throw AppError.validation('That plot is not part of this trial.', [{ path: 'plotId', message: 'That plot is not part of this trial.', reason: 'plot_not_in_trial' }]).because(
-      'plot_not_in_trial',
-    );
-  }
+  if (!p || p.trial_id !== trialId) throw plotNotInTrial();
 }
 
 async function assertPotOnPlot(em: EntityManager, input: Record<string, unknown>) {
   if (!input.potId) return;
   const [p] = (await em.query('SELECT plot_id FROM pots WHERE id = $1', [input.potId])) as { plot_id: string | null }[];
-  if (!p || p.plot_id !== input.plotId) {
-    throw AppError.validation('That pot does not sit in this plot.', [{ path: 'potId', message: 'That pot does not sit in this plot.', reason: 'pot_not_in_plot' }]).because('pot_not_in_plot');
-  }
+  if (!p || p.plot_id !== input.plotId) throw potNotInPlot();
+}
+
+/** What the write statement reports beside the record: the trial's state and each check's outcome (`_created` null: no record). */
+interface WriteOutcome {
+  _status: TrialStatus;
+  _plantingDate: string;
+  _endDate: string | null;
+  _plotOk: boolean;
+  _dateOk: boolean;
+  _potOk: boolean;
+  _created: boolean | null;
+}
+
+/**
+ * One statement that creates a log, or says why not: it reads the trial (and, with `ownerOnly`, only
+ * a trial the user owns), checks the plot, the pot and the date, finds an earlier record with the same
+ * idempotency key, inserts only when every check passes and there is none, writes the audit entry
+ * when the trial is audited, and returns the record as the list shows it (plot label, who entered
+ * it). A single statement is atomic on its own, so no transaction; the rollup triggers fire in it.
+ * No row back: no such trial (or not the user's).
+ */
+function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, userId: string, input: Record<string, unknown>, opts: { ownerOnly: boolean; now: Date }) {
+  const params: unknown[] = [trialId, userId];
+  const p = (v: unknown) => `$${params.push(v)}`;
+  const fields = Object.keys(cfg.columns).filter((f) => input[f] !== undefined);
+  const cols = ['trial_id', 'entered_by', ...fields.map((f) => cfg.columns[f]!)];
+  // PostgreSQL has no year 0, which the ISO format allows. Such a day fails the date check (it is before any
+  // planting), so it is never stored; sent as NULL it cannot make the whole statement fail to parse.
+  const storable = (f: string) => !(f === cfg.timeField && /^0000-/.test(String(input[f])));
+  const values = ['$1', '$2', ...fields.map((f) => p(storable(f) ? input[f] : null))];
+  const plotId = input.plotId;
+  const plotOk = plotId === null || plotId === undefined ? String(!cfg.plotRequired) : `EXISTS (SELECT 1 FROM plots pl WHERE pl.id = ${p(plotId)} AND pl.trial_id = t.id)`;
+  const potOk = kind === 'water-events' && input.potId ? `EXISTS (SELECT 1 FROM pots o WHERE o.id = ${p(input.potId)} AND o.plot_id = ${p(plotId ?? null)})` : 'true';
+  // Compared as text, as the day and the trial's dates always were (so a year-0 day is refused, not a cast error).
+  const dateOk = `${p(logDay(cfg, input))}::text COLLATE "C" BETWEEN to_char(t.planting_date, 'YYYY-MM-DD') AND to_char(LEAST(t.end_date, ${p(lastOpenDay(opts.now))}::date), 'YYYY-MM-DD')`;
+  const key = input.idempotencyKey as string | undefined;
+  const keyParam = key ? p(key) : '';
+  const changes = p(JSON.stringify({ ...input }));
+  const sql = `
+    WITH c AS (
+      SELECT t.status, t.planting_date, t.end_date,
+             t.status = 'closed' OR EXISTS (SELECT 1 FROM trial_shares s WHERE s.trial_id = t.id AND s.withdrawn_at IS NULL) AS must_audit,
+             ${plotOk} AS plot_ok, ${dateOk} AS date_ok, ${potOk} AS pot_ok
+        FROM trials t
+       WHERE t.id = $1${opts.ownerOnly ? ' AND t.owner_id = $2' : ''}
+    ),${key ? `
+    prior AS (SELECT * FROM ${cfg.table} WHERE trial_id = $1 AND idempotency_key = ${keyParam}),` : ''}
+    ins AS (
+      INSERT INTO ${cfg.table} (${cols.join(', ')})
+      SELECT ${values.join(', ')} FROM c
+       WHERE c.status <> 'closed' AND c.plot_ok AND c.date_ok AND c.pot_ok${key ? ' AND NOT EXISTS (SELECT 1 FROM prior)' : ''}
+      ${key ? 'ON CONFLICT (trial_id, idempotency_key) WHERE idempotency_key IS NOT NULL DO NOTHING' : ''}
+      RETURNING *
+    ),
+    logged AS (
+      INSERT INTO audit_entries (trial_id, actor_id, action, entity_type, entity_id, changes)
+      SELECT i.trial_id, $2, 'create', '${cfg.entityType}', i.id, ${changes} FROM ins i CROSS JOIN c WHERE c.must_audit
+    )
+    SELECT c.status AS "_status", c.planting_date AS "_plantingDate", c.end_date AS "_endDate", c.plot_ok AS "_plotOk", c.date_ok AS "_dateOk", c.pot_ok AS "_potOk", r.*
+      FROM c LEFT JOIN (
+        SELECT true AS "_created", ${selectList(cfg)} ${fromClause(cfg, 'ins')}${
+          key ? `
+        UNION ALL
+        SELECT false, ${selectList(cfg)} ${fromClause(cfg, 'prior')}` : ''
+        }
+      ) r ON true`;
+  return { sql, params };
 }
 
 export function logsService(ctx: AppContext) {
@@ -167,39 +248,43 @@ export function logsService(ctx: AppContext) {
       return { rows: rows.map(presentLog), meta: { total, page: q.page, pageSize: q.pageSize } };
     },
 
-    /** Inserts one log inside a transaction; a repeated idempotency key returns the first record instead. */
-    async insert(em: EntityManager, kind: LogKind, trialId: string, userId: string, input: Record<string, unknown>): Promise<{ row: LogRow; created: boolean }> {
+    /**
+     * Creates one log in one statement (writeStatement); a repeated idempotency key returns the first
+     * record instead. Refusals, in this order: a closed trial; then, unless the key was seen before,
+     * the plot, the date and the pot. `ownerOnly`: write only into a trial the user owns (no row: a
+     * not-found error, which the route answers through its access check); `gate` is settled once the
+     * statement has shown that. Inside a transaction (the Round) pass its manager.
+     */
+    async insert(
+      em: EntityManager,
+      kind: LogKind,
+      trialId: string,
+      userId: string,
+      input: Record<string, unknown>,
+      opts: { ownerOnly?: boolean; gate?: AccessGate } = {},
+    ): Promise<{ row: LogRow; created: boolean }> {
       const cfg = logKinds[kind];
-      if (input.idempotencyKey) {
-        const existing = (await em.query(`SELECT ${selectList(cfg)} ${fromClause(cfg)} WHERE l.trial_id = $1 AND l.idempotency_key = $2`, [
-          trialId,
-          input.idempotencyKey,
-        ])) as LogRow[];
-        if (existing[0]) return { row: presentLog(existing[0]), created: false };
-      }
-      await checkAll(em, kind, trialId, input);
-      const fields = Object.keys(cfg.columns).filter((f) => input[f] !== undefined);
-      const cols = ['trial_id', 'entered_by', ...fields.map((f) => cfg.columns[f]!)];
-      const values = [trialId, userId, ...fields.map((f) => input[f])];
-      const placeholders = values.map((_, i) => `$${i + 1}`);
-      const conflict = input.idempotencyKey ? 'ON CONFLICT (trial_id, idempotency_key) WHERE idempotency_key IS NOT NULL DO NOTHING' : '';
-      const inserted = (await em.query(`INSERT INTO ${cfg.table} (${cols.join(', ')}) VALUES (${placeholders.join(', ')}) ${conflict} RETURNING id`, values)) as { id: string }[];
-      const id = inserted[0]?.id;
-      const row = (await em.query(
-        `SELECT ${selectList(cfg)} ${fromClause(cfg)} WHERE ${id ? 'l.id = $1' : 'l.trial_id = $1 AND l.idempotency_key = $2'}`,
-        id ? [id] : [trialId, input.idempotencyKey],
-      )) as LogRow[];
-      if (id && (await mustAudit(em, trialId))) {
-        await writeAudit(em, { trialId, actorId: userId, action: 'create', entityType: cfg.entityType, entityId: id, changes: { ...input } });
-      }
-      return { row: presentLog(row[0]!), created: Boolean(id) };
+      const { sql, params } = writeStatement(cfg, kind, trialId, userId, input, { ownerOnly: opts.ownerOnly ?? false, now: ctx.now() });
+      const [out] = (await em.query(sql, params)) as (LogRow & WriteOutcome)[];
+      if (!out) throw AppError.notFound(opts.ownerOnly ? 'trial' : 'Trial');
+      if (opts.gate) opts.gate.settled = true;
+      if (out._status === 'closed') throw trialClosed();
+      const present = (r: LogRow) => presentLog(Object.fromEntries(Object.entries(r).filter(([k]) => !k.startsWith('_'))) as LogRow);
+      if (out._created !== null) return { row: present(out), created: out._created };
+      if ((input.plotId === null || input.plotId === undefined) && cfg.plotRequired) throw plotRequired();
+      if (!out._plotOk) throw plotNotInTrial();
+      if (!out._dateOk) throw dateOutsideTrial(cfg, logDay(cfg, input), out._plantingDate, out._endDate);
+      if (!out._potOk) throw potNotInPlot();
+      // Every check passed and nothing was written: the same key was being written at the same moment
+      // (ON CONFLICT DO NOTHING waited for it). Its record is committed now.
+      const [row] = (await em.query(`SELECT ${selectList(cfg)} ${fromClause(cfg)} WHERE l.trial_id = $1 AND l.idempotency_key = $2`, [trialId, input.idempotencyKey ?? null])) as LogRow[];
+      if (!row) throw new Error(`${kind}: the write statement neither wrote nor refused`);
+      return { row: presentLog(row), created: false };
     },
 
-    async create(kind: LogKind, trialId: string, userId: string, input: Record<string, unknown>) {
-      return ctx.ds.transaction(async (tx) => {
-        await assertTrialWritable(tx, trialId);
-        return this.insert(tx, kind, trialId, userId, input);
-      });
+    /** A grower's new log, as the trial's owner: one statement, no transaction (see insert). */
+    async create(kind: LogKind, trialId: string, userId: string, input: Record<string, unknown>, gate?: AccessGate) {
+      return this.insert(ctx.ds.manager, kind, trialId, userId, input, { ownerOnly: true, gate });
     },
 
     async update(kind: LogKind, id: string, userId: string, patch: Record<string, unknown>) {

@@ -95,8 +95,10 @@ export function presentPlot(p: PlotEntity, potIds: string[] = []): Plot {
 export async function assertTrialWritable(em: EntityManager, trialId: string) {
   const [row] = (await em.query('SELECT status FROM trials WHERE id = $1', [trialId])) as { status: TrialStatus }[];
   if (!row) throw AppError.notFound('Trial');
-  if (row.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to make changes.').because('trial_closed');
+  if (row.status === 'closed') throw trialClosed();
 }
+
+export const trialClosed = () => new AppError('conflict', 'This trial is closed and read-only. Reopen it to make changes.').because('trial_closed');
 
 const allowedTransitions: Record<TrialStatus, TrialStatus[]> = { draft: ['active', 'closed'], active: ['closed', 'draft'], closed: ['active'] };
 
