@@ -124,7 +124,7 @@ describe('results in Spanish', () => {
     expect(body).toMatch(/De 6\sL a 10\sL/);
     expect(body).not.toMatch(/6–10 L|<6 L|>10 L/);
     await page.getByText('Cómo se calculan estos números').click();
-    await page.getByText(/Cada cultivador aparece solo con su seudónimo en la cohorte/).waitFor();
+    await page.getByText(/Cada cultivador aparece solo con su seudónimo en el grupo/).waitFor();
     expect(await page.locator('main').innerText()).not.toMatch(/Growers appear by their cohort pseudonym|Pooled by random effects/);
     await both('cohort-results-es');
   });
