@@ -98,13 +98,21 @@ function presentLog(row: LogRow): LogRow {
   return out;
 }
 
-/** The log's date must fall within the trial: from planting to the end date (or tomorrow, for an open trial). */
+/**
+ * The log's date must fall within the trial: from planting to the end date (or tomorrow, for an
+ * open trial). Days are the garden's: the time's day and "tomorrow" are taken in its time zone.
+ */
 async function assertWithinTrial(em: EntityManager, trialId: string, cfg: LogKindConfig, input: Record<string, unknown>, now: Date) {
-  const [t] = (await em.query('SELECT planting_date, end_date FROM trials WHERE id = $1', [trialId])) as { planting_date: string; end_date: string | null }[];
-  if (!t) throw AppError.notFound('Trial');
   const raw = input[cfg.timeField] as string;
-  const day = cfg.dateOnly ? raw : new Date(raw).toISOString().slice(0, 10);
-  const tomorrow = new Date(now.getTime() + 36 * 3600 * 1000).toISOString().slice(0, 10);
+  const [t] = (await em.query(
+    `SELECT to_char(t.planting_date, 'YYYY-MM-DD') AS planting_date, to_char(t.end_date, 'YYYY-MM-DD') AS end_date,
+            to_char(($2::timestamptz AT TIME ZONE g.time_zone)::date + 1, 'YYYY-MM-DD') AS tomorrow,
+            ${cfg.dateOnly ? '$3::text' : "to_char($3::timestamptz AT TIME ZONE g.time_zone, 'YYYY-MM-DD')"} AS day
+       FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1`,
+    [trialId, now, raw],
+  )) as { planting_date: string; end_date: string | null; tomorrow: string; day: string }[];
+  if (!t) throw AppError.notFound('Trial');
+  const { day, tomorrow } = t;
   const last = t.end_date && t.end_date < tomorrow ? t.end_date : tomorrow;
   if (day < t.planting_date || day > last) {
     const ends = t.end_date ? `ends ${t.end_date}` : 'still running';
@@ -155,8 +163,11 @@ export function logsService(ctx: AppContext) {
       const where: string[] = ['l.trial_id = $1'];
       const params: unknown[] = [trialId];
       if (q.plotId) where.push(`l.plot_id = $${params.push(q.plotId)}`);
-      if (q.from) where.push(`l.${cfg.timeColumn} >= $${params.push(q.from)}::date`);
-      if (q.to) where.push(`l.${cfg.timeColumn} < ($${params.push(q.to)}::date + 1)`);
+      // from/to are the garden's days: a time column is compared with that day's midnight in the garden's zone.
+      const zone = '(SELECT g.time_zone FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1)';
+      const dayStart = (p: string) => (cfg.dateOnly ? p : `(${p}::timestamp AT TIME ZONE ${zone})`);
+      if (q.from) where.push(`l.${cfg.timeColumn} >= ${dayStart(`$${params.push(q.from)}::date`)}`);
+      if (q.to) where.push(`l.${cfg.timeColumn} < ${dayStart(`($${params.push(q.to)}::date + 1)`)}`);
       const whereSql = where.join(' AND ');
       const dir = q.sort === 'asc' ? 'ASC' : 'DESC';
       const [{ total }] = (await ctx.ds.query(`SELECT count(*)::int AS total FROM ${cfg.table} l WHERE ${whereSql}`, params)) as [{ total: number }];

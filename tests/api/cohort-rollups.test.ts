@@ -70,7 +70,7 @@ describe('cohort results from the log rollups', () => {
     const fromRaw = await recomputeCohortResultsFromRawRows(t.ds, {
       cohortId,
       userId: leadId,
-      today: t.clock.now!.toISOString().slice(0, 10),
+      now: t.clock.now!,
       query: cohortResultsQuerySchema.parse(query),
     });
     expect(differences(viaRollups, cohortResultsSchema.parse(JSON.parse(JSON.stringify(fromRaw))))).toEqual([]);

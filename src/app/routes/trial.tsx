@@ -122,7 +122,7 @@ export function TrialPage() {
           </div>
         ) : null}
         {tab === 'records' ? <LogsPanel trialId={tr.id} plots={plots.data ?? []} editable={owner && tr.status !== 'closed'} /> : null}
-        {tab === 'import' && user ? <ImportWizard trialId={tr.id} userId={user.id} /> : null}
+        {tab === 'import' && user ? <ImportWizard trialId={tr.id} userId={user.id} timeZone={tr.timeZone} /> : null}
         {tab === 'records' ? <ExportLinks trialId={tr.id} /> : null}
         {tab === 'setup' ? (
           <div className="space-y-6">

@@ -139,7 +139,7 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
  * the date format → preview with every row problem → send (progress) → one transaction on the
  * server. Nothing is written until the whole file is valid.
  */
-export function ImportWizard({ trialId, userId }: { trialId: string; userId: string }) {
+export function ImportWizard({ trialId, userId, timeZone }: { trialId: string; userId: string; timeZone: string }) {
   const { t } = useTranslation('import');
   const [kind, setKind] = useState<ImportKind>('water-events');
   const [parseProgress, setParseProgress] = useState<number | null>(null);
@@ -165,8 +165,8 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
 
   const normalised = useMemo(() => {
     if (!parsed || !dateFormat) return null;
-    return normaliseRows(parsed.rows, { kind, mapping, units, dateFormat, offsetMinutes: -new Date().getTimezoneOffset(), headers: parsed.headers });
-  }, [parsed, kind, mapping, units, dateFormat]);
+    return normaliseRows(parsed.rows, { kind, mapping, units, dateFormat, timeZone, headers: parsed.headers });
+  }, [parsed, kind, mapping, units, dateFormat, timeZone]);
 
   const reset = () => {
     setParsed(null);
