@@ -53,7 +53,7 @@ export const timeZoneSchema = z
   .transform((name, ctx) => {
     const canonical = canonicalTimeZone(name);
     if (canonical === null) {
-      ctx.addIssue({ code: 'custom', message: `"${name}" is not an IANA time-zone name (like America/Denver or Europe/Madrid).`, params: { reason: 'unknown_time_zone' } });
+      ctx.addIssue({ code: 'custom', message: 'Choose a time zone from the list (an IANA name like America/Denver).', params: { reason: 'unknown_time_zone' } });
       return z.NEVER;
     }
     return canonical;

@@ -42,6 +42,7 @@ export function GardenPage() {
             {formatNumber(g.latitudeDeg, 1, 1)}°, {formatNumber(g.longitudeDeg, 1, 1)}° · {units.fmt(g.elevationM, 'length', 0)} · {t(($) => $.soil[g.soilTexture])}
             {g.coastal ? ` · ${t(($) => $.page.coastal)}` : ''}
           </p>
+          <p className="text-sm text-ink-muted">{t(($) => $.page.timeZone, { zone: g.timeZone })}</p>
         </div>
         <div className="ml-auto flex gap-2">
           <Button variant="secondary" onClick={() => setEditing((v) => !v)}>
