@@ -97,6 +97,20 @@ export function instantOfWallClock(w: WallClock, zone: string): number {
   return asUtc - offsetMinutesAt(asUtc - 86_400_000, zone) * 60_000;
 }
 
+/** An instant as the garden's wall clock, 'YYYY-MM-DDTHH:mm' (the value of an `<input type="datetime-local">`). */
+export function wallClockInput(instant: Date | number, zone: string): string {
+  const w = wallClock(instant instanceof Date ? instant.getTime() : instant, zone);
+  return `${pad(w.y, 4)}-${pad(w.m)}-${pad(w.d)}T${pad(w.hh)}:${pad(w.mm)}`;
+}
+
+/** 'YYYY-MM-DDTHH:mm[:ss]' read as the garden's wall clock, as an ISO instant (UTC); null when malformed. */
+export function instantOfWallClockInput(value: string, zone: string): string | null {
+  const m = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?$/.exec(value);
+  if (!m) return null;
+  const [y, mo, d, hh, mm, ss] = [1, 2, 3, 4, 5, 6].map((i) => Number(m[i] ?? 0)) as [number, number, number, number, number, number];
+  return new Date(instantOfWallClock({ y, m: mo, d, hh, mm, ss }, zone)).toISOString();
+}
+
 /** `day` ('YYYY-MM-DD') plus `n` calendar days. */
 export function addDays(day: string, n: number): string {
   return new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);

@@ -64,6 +64,7 @@ export function GardenPage() {
         {adding ? (
           <div className="rounded-card border border-sand-200 bg-white p-4">
             <TrialForm
+              timeZone={g.timeZone}
               submitLabel={t(($) => $.page.createTrial)}
               onSubmit={(input) => createTrial.mutateAsync(input).then((created) => navigate(paths.trial(created.id)))}
             />
@@ -71,7 +72,7 @@ export function GardenPage() {
         ) : null}
         {trials.isPending ? <p role="status">{t(($) => $.page.loadingTrials)}</p> : <TrialCards trials={trials.data ?? []} trialPath={paths.trial} roundPath={paths.round} />}
       </section>
-      <WeatherPanel gardenId={g.id} />
+      <WeatherPanel gardenId={g.id} timeZone={g.timeZone} />
       <ConfirmDialog
         open={confirmDelete}
         title={t(($) => $.page.deleteTitle, { name: g.name })}
