@@ -10,6 +10,7 @@
  */
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { guessMapping, normaliseRows } from '@shared/import/csv-import';
 import { canonicalTimeZone } from '@shared/time-zone';
 import { makePairedTrial } from '../helpers/notebook-fixtures';
 import { ApiAgent, startTestApp, uniqueEmail, type TestApp } from '../helpers/test-app';
@@ -140,6 +141,9 @@ describe("days are the garden's days", () => {
       const res = await a.post(`/api/trials/${f.trial.id}/moisture-readings`, { plotId: p.id, takenAt: refillAt, method: 'vwc', depthCm: 15, value: 20 });
       expect(res.status).toBe(201);
     }
+    const analysis = await a.get(`/api/trials/${f.trial.id}/analysis`);
+    const series = analysis.body.data.moisture.series as { day: string; treatment: string; method: string; value: number }[];
+    expect(series.map((x) => x.day)).toEqual(['2026-06-01', '2026-06-01']);
     const csv = parse((await a.get(`/api/trials/${f.trial.id}/export/moisture-readings.csv`)).text);
     expect(new Set(csv.data.map((r) => r.day))).toEqual(new Set(['2026-06-01']));
   });
@@ -170,6 +174,28 @@ describe("days are the garden's days", () => {
     });
     expect(imported.status).toBe(400);
     expect(imported.body.error.details.rows[0]).toMatchObject({ code: 'outsideTrial', params: { day: '2026-06-01', planted: '2026-06-02' } });
+  });
+
+  it("a CSV date without a time is that calendar day in the garden's zone, wherever the browser is", async () => {
+    t.clock.now = new Date('2026-06-20T12:00:00Z');
+    for (const timeZone of ['America/Los_Angeles', 'Asia/Tokyo', 'UTC']) {
+      const a = await grower();
+      const f = await makePairedTrial(a, { timeZone });
+      // What the import wizard does in the browser (shared/import/csv-import.ts), with the garden's zone.
+      const headers = ['plot', 'date', 'kind', 'litres'];
+      const { records, errors } = normaliseRows([[f.plots[0]!.label, '2026-06-01', 'surface', '4']], {
+        kind: 'water-events',
+        headers,
+        mapping: guessMapping(headers, 'water-events'),
+        units: {},
+        dateFormat: 'iso',
+        timeZone,
+      });
+      expect(errors).toEqual([]);
+      expect((await a.post(`/api/trials/${f.trial.id}/import`, { kind: 'water-events', rows: records })).status).toBe(201);
+      const csv = parse((await a.get(`/api/trials/${f.trial.id}/export/water-events.csv`)).text);
+      expect(csv.data.map((r) => r.day), timeZone).toEqual(['2026-06-01']);
+    }
   });
 
   it('"today" for frost warnings is the garden\'s today, across midnight', async () => {
