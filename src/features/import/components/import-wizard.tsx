@@ -342,6 +342,7 @@ export function ImportWizard({ trialId, userId, timeZone }: { trialId: string; u
               </SelectField>
             )
           ) : null}
+          {detection && detection.candidates.length > 0 && dateField.type === 'datetime' ? <p className="text-sm text-ink-muted">{t(($) => $.gardenClock, { zone: timeZone })}</p> : null}
           {normalised ? (
             <>
               {normalised.errors.length ? (
