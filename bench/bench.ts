@@ -49,6 +49,12 @@ export interface BenchOptions {
   pgPort: number;
   pgDataDir: string;
   keepDatabase: boolean;
+  /**
+   * Serve figures 1 and 2 from the bench's own process, as runs up to session 3 did, instead of
+   * the app in a child process (the default): the bench's client, its scenario plan and the bare
+   * SQL then share the server's event loop and heap.
+   */
+  readsInProcess?: boolean;
   log: (m: string) => void;
 }
 
@@ -109,8 +115,8 @@ export interface ScenarioSummary {
 export const isSkipped = (v: unknown): v is Skipped => typeof v === 'object' && v !== null && 'skipped' in v;
 
 /** The command line that reproduces a run with these options. */
-export function benchCommand(o: Pick<BenchOptions, 'scale' | 'skipBrowser' | 'only'>): string {
-  const args = [o.scale !== 1 ? `--scale ${o.scale}` : '', o.skipBrowser ? '--skip-browser' : '', o.only ? `--only ${o.only.join(',')}` : ''].filter(Boolean);
+export function benchCommand(o: Pick<BenchOptions, 'scale' | 'skipBrowser' | 'only' | 'readsInProcess'>): string {
+  const args = [o.scale !== 1 ? `--scale ${o.scale}` : '', o.skipBrowser ? '--skip-browser' : '', o.only ? `--only ${o.only.join(',')}` : '', o.readsInProcess ? '--reads-in-process' : ''].filter(Boolean);
   return `npm run bench${args.length ? ` -- ${args.join(' ')}` : ''}`;
 }
 
@@ -228,6 +234,7 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       loadAverageAtStart: r3(os.loadavg()[0]!),
       appPoolSize: 10,
       sessionPoolSize: 4,
+      readsServedBy: o.readsInProcess ? 'the bench process' : 'a child process',
       ...gitInfo(),
     };
     environment.commitFlushMs = await commitLatency(loader);
@@ -269,17 +276,30 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       });
       const hasCohortRoute = (app.locals.routeSpecs as RouteSpec[]).some((s) => s.method === 'get' && s.path === '/cohorts/:cohortId/results');
       const cohortQueries = hasCohortRoute && want('cohort') ? await loadCohortResultsQueries() : null;
+      // Statement counts (recordQueries) need the in-process app: it patches this process's pg client.
       const grower = new SessionClient(server.url);
       const growerUser = await grower.signIn(benchEmails.grower, BENCH_PASSWORD);
       const lead = new SessionClient(server.url);
       const leadUser = await lead.signIn(benchEmails.lead, BENCH_PASSWORD);
+      const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
+      // Figures 1 and 2 time the app in its own process, as a browser would reach it: the bench's
+      // client, its scenario plan (~70 MB of heap) and the bare SQL's rows stay out of the server's
+      // event loop and garbage collector. The bare SQL runs here, on a pool of the same size.
+      const readsChild = want('analysis') || want('cohort') ? (o.readsInProcess ? null : await startChildServer(childEnv)) : null;
+      if (readsChild) cleanups.push(() => readsChild.stop());
+      const readsUrl = readsChild?.url ?? server.url;
+      const readGrower = new SessionClient(readsUrl);
+      await readGrower.signIn(benchEmails.grower, BENCH_PASSWORD);
+      const readLead = new SessionClient(readsUrl);
+      await readLead.signIn(benchEmails.lead, BENCH_PASSWORD);
+      log(`figures 1 and 2 served by ${readsChild ? `the app in a child process (pid ${readsChild.pid})` : 'the app in the bench process (--reads-in-process)'}`);
 
       const cohortRawQueries = cohortQueries ? await loadCohortResultsRawQueries() : null;
       const measureReads = async (label: string) => {
         let analysis: RouteFigure | Skipped = notSelected;
         if (want('analysis')) {
           log(`${label}: figure 1, GET /api/trials/:id/analysis ×${iterations} against its bare SQL`);
-          const a = await compareRouteWithSql({ client: grower, path: `/api/trials/${ids.featuredTrialId}/analysis`, bare: bareAnalysis(ds, ids.featuredTrialId, today), iterations, warmup, budgetMs: 30_000, minIterations: Math.min(iterations, 20) });
+          const a = await compareRouteWithSql({ client: readGrower, path: `/api/trials/${ids.featuredTrialId}/analysis`, bare: bareAnalysis(ds, ids.featuredTrialId, today), iterations, warmup, budgetMs: 30_000, minIterations: Math.min(iterations, 20) });
           log(`${label}: analysis median ${a.routeMs.median} ms (p95 ${a.routeMs.p95}), bare SQL ${a.bareSqlMs.median} ms, ratio ${r3(a.ratio)}`);
           analysis = a;
         }
@@ -290,13 +310,13 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
           log(`${label}: figure 2 skipped (${cohort.skipped})`);
         } else {
           log(`${label}: figure 2, GET /api/cohorts/:id/results (${plan.bigCohortTrials} trials) ×${iterations} against its bare SQL`);
-          const c = await compareRouteWithSql({ client: lead, path: `/api/cohorts/${ids.bigCohortId}/results`, bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today), iterations, warmup: Math.min(warmup, 2), budgetMs: 30_000, minIterations: Math.min(iterations, 10) });
+          const c = await compareRouteWithSql({ client: readLead, path: `/api/cohorts/${ids.bigCohortId}/results`, bare: bareCohortResults(ds, cohortQueries, ids.bigCohortId, leadUser.id, today), iterations, warmup: Math.min(warmup, 2), budgetMs: 30_000, minIterations: Math.min(iterations, 10) });
           log(`${label}: cohort results median ${c.routeMs.median} ms (p95 ${c.routeMs.p95}), bare SQL ${c.bareSqlMs.median} ms, ratio ${r3(c.ratio)}`);
           cohort = c;
           if (cohortRawQueries) {
             const reps = o.scale >= 0.1 ? { pairs: 6, coldReps: 3, changedReps: 5 } : { pairs: 2, coldReps: 1, changedReps: 1 };
             log(`${label}: figure 2, route against the raw-row SQL ×${reps.pairs}, cold ×${reps.coldReps}, one trial changed ×${reps.changedReps}`);
-            const cache = await measureCohortCache({ ds, client: lead, raw: cohortRawQueries, cohortId: ids.bigCohortId, userId: leadUser.id, today, ...reps });
+            const cache = await measureCohortCache({ ds, client: readLead, raw: cohortRawQueries, cohortId: ids.bigCohortId, userId: leadUser.id, today, ...reps });
             log(`${label}: route ${cache.routeMs.median} ms against raw-row SQL ${cache.rawSqlMs.median} ms (${cache.speedup}× faster); cold ${cache.coldMs.median} ms; one trial changed ${cache.oneChangedMs.median} ms`);
             return { analysis, cohort, cohortCache: cache };
           }
@@ -312,7 +332,6 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
         log(`${label}: export ${fig.rows.toLocaleString('en')} rows at ${fig.apiRowsPerSecond.toLocaleString('en')} rows/s (COPY ${fig.copyRowsPerSecond.toLocaleString('en')}), ratio ${r3(fig.ratio)}, peak RSS ${fig.memory.peakRssMb} MB`);
         return fig;
       };
-      const childEnv = { databaseUrl, smtpUrl: rt.smtpUrl, s3Endpoint: rt.s3Endpoint };
       const bounded = o.scale >= 0.1 ? { durationS: 10, amount: null } : { durationS: null, amount: 40 };
 
       const halfReads = await measureReads('half');
@@ -367,7 +386,7 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
       if (cohortQueries) {
         plans.push(await explain(ds, 'cohort.trials', cohortQueries.trials, [ids.bigCohortId, leadUser.id, today()]));
         plans.push(await explain(ds, 'cohort.blocks', cohortQueries.blocks, [ids.bigCohortId]));
-        plans.push(await explain(ds, 'cohort.weeklyVolumes', cohortQueries.weeklyVolumes, [ids.bigCohortId, today()]));
+        plans.push(await explain(ds, 'cohort.water', cohortQueries.water, [ids.bigCohortId, today()]));
         plans.push(await explain(ds, 'cohort.progress', cohortQueries.progress, [ids.bigCohortId]));
       }
       if (plans.length) fs.writeFileSync(path.join(o.tmpDir, 'plans-full.txt'), plans.map((p) => `=== ${p.name}\n${p.text}\n`).join('\n'));

@@ -56,12 +56,12 @@ async function dump(port: number) {
         asOf: today,
         trials,
         blocks: await ds.query(q.blocks, [cohort.id]),
-        weekly: await ds.query(q.weeklyVolumes, [cohort.id, today]),
+        water: await ds.query(q.water, [cohort.id, today]),
         progress: await ds.query(q.progress, [cohort.id]),
       };
       fs.mkdirSync(DIR, { recursive: true });
       fs.writeFileSync(INPUTS, JSON.stringify(out));
-      console.log(`${trials.length} trials, ${out.blocks.length} blocks, ${out.weekly.length} week rows, ${out.progress.length} progress rows → ${path.relative(REPO_ROOT, INPUTS)}`);
+      console.log(`${trials.length} trials, ${out.blocks.length} blocks, ${out.water.length} trial water rows, ${out.progress.length} progress rows → ${path.relative(REPO_ROOT, INPUTS)}`);
     } finally {
       await ds.destroy();
     }
@@ -123,7 +123,7 @@ async function compare(rev: string, rounds: number) {
   for (let r = 0; r < rounds; r += 1) {
     for (const [name, m] of r % 2 === 0 ? impls : [...impls].reverse()) {
       let t = performance.now();
-      m.describeTrials(input.trials, input.blocks, input.weekly);
+      m.describeTrials(input.trials, input.blocks, input.water);
       record(`${name.padEnd(12)} describeTrials`, performance.now() - t);
       for (const method of ['DL', 'REML'] as const) {
         t = performance.now();

@@ -35,13 +35,14 @@ function parseArgs(argv: string[]): Parsed {
     }
     else if (a === '--out') o.outDir = path.resolve(value());
     else if (a === '--keep-db') o.keepDatabase = true;
+    else if (a === '--reads-in-process') o.readsInProcess = true;
     else if (a === '--pg-port') o.pgPort = Number(value());
     else if (a === '--analysis-probe') o.analysisProbe = true;
     else if (a === '--reuse-db') o.reuseDatabase = true;
     else if (a === '--iterations') o.iterations = Number(value());
     else if (a === '--label') o.label = value();
     else if (a === '--help' || a === '-h') {
-      console.log(`npm run bench -- [--scale 0.001] [--skip-browser] [--only ${FIGURE_NAMES.join(',')}] [--out DIR] [--keep-db] [--pg-port 54349]`);
+      console.log(`npm run bench -- [--scale 0.001] [--skip-browser] [--only ${FIGURE_NAMES.join(',')}] [--out DIR] [--keep-db] [--reads-in-process] [--pg-port 54349]`);
       console.log('npm run bench -- --analysis-probe [--keep-db] [--reuse-db] [--iterations 50] [--label TEXT] [--pg-port 54349]');
       process.exit(0);
     } else throw new Error(`Unknown option ${a}`);

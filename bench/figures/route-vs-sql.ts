@@ -80,7 +80,7 @@ export function bareAnalysis(ds: DataSource, trialId: string, today: () => strin
 }
 
 /** The four aggregates, and (with the log rollups) the staleness check the route runs before them. */
-export type CohortQueries = { stale?: string; trials: string; blocks: string; weeklyVolumes: string; progress: string };
+export type CohortQueries = { stale?: string; trials: string; blocks: string; water: string; progress: string };
 
 /**
  * The cohort results service, if this checkout has it (another engineer is building it). Loaded by
@@ -104,7 +104,7 @@ export function bareCohortResults(ds: DataSource, q: CohortQueries, cohortId: st
     await Promise.all([
       ds.query(q.trials, [cohortId, userId, t]),
       ds.query(q.blocks, [cohortId]),
-      ds.query(q.weeklyVolumes, [cohortId, t]),
+      ds.query(q.water, [cohortId, t]),
       ds.query(q.progress, [cohortId]),
     ]);
   };

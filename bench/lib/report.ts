@@ -233,7 +233,7 @@ export function renderMarkdown(r: BenchResults): string {
       `Commit ${e.commit}${Number(e.dirtyFiles) ? ` with ${e.dirtyFiles} uncommitted files in the tree` : ''}. ` +
       `Machine: ${e.cpus} × ${e.cpuModel}, ${e.memoryGb} GB, ${e.platform}; Node ${e.node}; PostgreSQL ${e.postgres} ` +
       `(fsync=${e.fsync}, synchronous_commit=${e.synchronousCommit}, shared_buffers=${e.sharedBuffers}, work_mem=${e.workMem}; one durable one-row commit takes ${e.commitFlushMs} ms on this disk); ` +
-      `app pool ${e.appPoolSize}, session pool ${e.sessionPoolSize}. ` +
+      `app pool ${e.appPoolSize}, session pool ${e.sessionPoolSize}; figures 1 and 2 served by ${e.readsServedBy ?? 'the bench process'}. ` +
       `The machine was shared: 1-minute load average ${e.loadAverageAtStart} at the start and ${e.loadAverageAtEnd} at the end, on 2 cores.`,
     '',
   );

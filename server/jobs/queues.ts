@@ -11,6 +11,8 @@ export const QUEUES = {
   frostSweep: 'notifications-frost-sweep',
   digestSweep: 'notifications-digest-sweep',
   send: 'notifications-send',
+  /** Not a notification: refreshes the cohort log rollups of shared trials (rollup-sweep.ts). */
+  rollupSweep: 'cohort-rollups-sweep',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 
@@ -20,6 +22,7 @@ export const SCHEDULES: { queue: QueueName; cron: string }[] = [
   { queue: QUEUES.frostSweep, cron: '*/15 * * * *' },
   // Mondays 07:00 UTC.
   { queue: QUEUES.digestSweep, cron: '0 7 * * 1' },
+  { queue: QUEUES.rollupSweep, cron: '* * * * *' },
 ];
 
 /** A claim left 'pending' this long (a crash between claim and send) may be taken again. */

@@ -1,6 +1,6 @@
 /**
  * pg-boss on the app's own PostgreSQL (schema `pgboss`): queues, cron schedules and workers for
- * the notification jobs. Jobs live in the database, so a job queued before a restart runs after
+ * the notification jobs and the cohort rollup sweep. Jobs live in the database, so a job queued before a restart runs after
  * it; the ledger (send-ledger.ts) makes a job that runs twice send once.
  *
  * `npm start` starts it after the migrations and stops it before the database. Tests start it
@@ -9,6 +9,7 @@
 import PgBoss from 'pg-boss';
 import type { NotificationContext } from '../services/reminders.service';
 import { runDigestSweep, runFrostSweep, runRefillSweep, sendUserNotifications } from './notifications';
+import { runRollupSweep } from './rollup-sweep';
 import { QUEUES, SCHEDULES, sendJobSchema, type QueueName, type SendJob } from './queues';
 
 export interface JobRunnerOptions {
@@ -36,6 +37,7 @@ const queueOptions: Record<QueueName, Omit<PgBoss.Queue, 'name'>> = {
   [QUEUES.frostSweep]: { policy: 'short', retryLimit: 2, retryDelay: 60, expireInSeconds: 600 },
   [QUEUES.digestSweep]: { policy: 'short', retryLimit: 5, retryDelay: 300, retryBackoff: true, expireInSeconds: 1800 },
   [QUEUES.send]: { policy: 'short', retryLimit: 6, retryDelay: 60, retryBackoff: true, expireInSeconds: 300 },
+  [QUEUES.rollupSweep]: { policy: 'short', retryLimit: 1, retryDelay: 60, expireInSeconds: 600 },
 };
 
 export async function startJobRunner(ctx: NotificationContext, opts: JobRunnerOptions): Promise<JobRunner> {
@@ -63,10 +65,17 @@ export async function startJobRunner(ctx: NotificationContext, opts: JobRunnerOp
       if (!job.success) throw new Error(`A notifications-send job needs { userId, kind } (got ${JSON.stringify(data)}).`);
       return sendUserNotifications(ctx, job.data, ctx.now());
     },
+    [QUEUES.rollupSweep]: async () => {
+      const n = await runRollupSweep(ctx.ds);
+      if (n > 0) ctx.logger.info({ trials: n }, 'cohort rollups refreshed');
+      return n;
+    },
   };
 
   if (schedule) {
     for (const s of SCHEDULES) await boss.schedule(s.queue, s.cron, {}, { tz: 'UTC' });
+    // Once at start too: rollups left stale by a migration or a restart need not wait for the minute.
+    await boss.send(QUEUES.rollupSweep, {}, { singletonKey: 'start' });
   }
   if (opts.work ?? true) {
     for (const name of Object.values(QUEUES)) {

@@ -3,7 +3,7 @@ import {
   type BlockAggregate,
   type CohortTrialAggregate,
   type ProgressAggregate,
-  type WeeklyVolumeAggregate,
+  type TrialWaterWeeks,
 } from '@shared/analysis/cohort-effects';
 import type { CohortResults, CohortResultsQuery, CreateExclusionInput, Exclusion } from '@shared/schemas/cohort-results';
 import type { DataSource } from 'typeorm';
@@ -45,6 +45,21 @@ const spansAt = (param: string) => `
     SELECT sh.id, sh.planting_date, LEAST(COALESCE(sh.end_date, d.today), d.today) AS as_of, g.time_zone
       FROM shared sh JOIN gardens g ON g.id = sh.garden_id
       CROSS JOIN LATERAL (SELECT (${param}::timestamptz AT TIME ZONE g.time_zone)::date AS today) d`;
+
+/**
+ * The end of both water queries: from `wk` (trial_id, week, mask = weekdays with water inside the
+ * season, olla / surface = mean litres per event of that kind, NULL without one), one row per trial
+ * with each kind's weeks and means as arrays in week order, and the days with water (bit_count of
+ * each week's mask as bit(7), the low 7 bits, summed).
+ */
+const waterArrays = `
+    SELECT trial_id AS "trialId", sum(bit_count(mask::bit(7)))::int AS "daysWithWater",
+           COALESCE(array_agg(to_char(week, 'YYYY-MM-DD') ORDER BY week) FILTER (WHERE olla IS NOT NULL), '{}') AS "ollaWeekStarts",
+           COALESCE(array_agg(olla::float8 ORDER BY week) FILTER (WHERE olla IS NOT NULL), '{}') AS "ollaLitresPerEvent",
+           COALESCE(array_agg(to_char(week, 'YYYY-MM-DD') ORDER BY week) FILTER (WHERE surface IS NOT NULL), '{}') AS "surfaceWeekStarts",
+           COALESCE(array_agg(surface::float8 ORDER BY week) FILTER (WHERE surface IS NOT NULL), '{}') AS "surfaceLitresPerEvent"
+      FROM wk
+     GROUP BY trial_id`;
 
 /**
  * The same four aggregates computed from the raw log rows on every call: the definition the rollups
@@ -124,11 +139,11 @@ export const cohortResultsRawQueries = {
      ORDER BY trial_id, block_key`,
 
   /**
-   * Per trial, kind of event and ISO week (Monday): mean litres per event (the wrong-unit check) and
-   * a bitmask of the weekdays (bit 0 = Monday) with water inside the season, planting to end or
-   * today (completeness). $2 = the request's instant. Days and weeks are the garden's.
+   * One row per trial with water events: per kind, its ISO weeks (Mondays) in order and each week's
+   * mean litres per event (the wrong-unit check), and the days inside the season, planting to end
+   * or the garden's today, with any water (completeness). $2 = the request's instant; days and weeks are the garden's.
    */
-  weeklyVolumes: `
+  water: `
     WITH ${sharedTrials},
     spans AS (${spansAt('$2')}),
     -- Day of the week by date arithmetic from a known Monday (1970-01-05): no time-zone work per row.
@@ -136,12 +151,12 @@ export const cohortResultsRawQueries = {
       SELECT trial_id, kind, volume_l, day, (day - DATE '1970-01-05') % 7 AS dow, day BETWEEN planting_date AND as_of AS in_season
         FROM (SELECT e.trial_id, e.kind, e.volume_l, (e.occurred_at AT TIME ZONE sp.time_zone)::date AS day, sp.planting_date, sp.as_of
                 FROM water_events e JOIN spans sp ON sp.id = e.trial_id) d),
-    w AS (
-      SELECT trial_id, kind, day - dow AS week, sum(volume_l) AS litres, count(*) AS events,
-             COALESCE(bit_or(1 << dow) FILTER (WHERE in_season), 0) AS days
-        FROM ev GROUP BY 1, 2, 3)
-    SELECT trial_id AS "trialId", kind AS series, week AS "weekStart", (litres / events)::float8 AS "litresPerEvent", events::int AS events, days AS "dayMask"
-      FROM w`,
+    wk AS (
+      SELECT trial_id, day - dow AS week, COALESCE(bit_or(1 << dow) FILTER (WHERE in_season), 0) AS mask,
+             sum(volume_l) FILTER (WHERE kind = 'olla_refill') / count(*) FILTER (WHERE kind = 'olla_refill') AS olla,
+             sum(volume_l) FILTER (WHERE kind = 'surface') / count(*) FILTER (WHERE kind = 'surface') AS surface
+        FROM ev GROUP BY 1, 2)
+    ${waterArrays}`,
 
   /**
    * Cohort litres per plot treatment and ISO week with the running total, over every shared trial
@@ -251,20 +266,24 @@ export const cohortResultsQueries = {
      ORDER BY trial_id, block_key`,
 
   /**
-   * As `cohortResultsRawQueries.weeklyVolumes`, from `trial_week_water`: the week's weekday mask is
-   * cut to the season (planting to end or the garden's today) here, bit i standing for week_start + i days. $2 = the request's instant.
+   * As `cohortResultsRawQueries.water`, from `trial_week_water`: the week's weekday mask is cut to
+   * the season (planting to end or the garden's today) here, bit i standing for week_start + i days. $2 = the request's instant.
    */
-  weeklyVolumes: `
+  water: `
     WITH ${summarisedTrials},
     spans AS (${spansAt('$2')}),
-    w AS (
-      SELECT ww.trial_id, ww.kind, ww.week_start AS week, sum(ww.litres) AS litres, sum(ww.events) AS events, bit_or(ww.day_mask) AS mask,
+    cut AS (
+      SELECT ww.trial_id, ww.week_start AS week, bit_or(ww.day_mask) AS mask,
+             sum(ww.litres) FILTER (WHERE ww.kind = 'olla_refill') / sum(ww.events) FILTER (WHERE ww.kind = 'olla_refill') AS olla,
+             sum(ww.litres) FILTER (WHERE ww.kind = 'surface') / sum(ww.events) FILTER (WHERE ww.kind = 'surface') AS surface,
              GREATEST(min(sp.planting_date) - ww.week_start, 0) AS lo, LEAST(min(sp.as_of) - ww.week_start, 6) AS hi
         FROM trial_week_water ww JOIN spans sp ON sp.id = ww.trial_id
-       GROUP BY ww.trial_id, ww.kind, ww.week_start)
-    SELECT trial_id AS "trialId", kind AS series, week AS "weekStart", (litres / events)::float8 AS "litresPerEvent", events::int AS events,
-           CASE WHEN hi < lo THEN 0 ELSE mask & (((1 << (hi + 1)) - 1) - ((1 << lo) - 1)) END AS "dayMask"
-      FROM w`,
+       GROUP BY ww.trial_id, ww.week_start),
+    wk AS (
+      SELECT trial_id, week, olla, surface,
+             CASE WHEN hi < lo THEN 0 ELSE mask & (((1 << (hi + 1)) - 1) - ((1 << lo) - 1)) END AS mask
+        FROM cut)
+    ${waterArrays}`,
 
   /** As `cohortResultsRawQueries.progress`, from `trial_week_water` (kinds summed per plot treatment). */
   progress: `
@@ -303,10 +322,10 @@ export function recomputeCohortResultsFromRawRows(ds: DataSource, r: ResultsRequ
 }
 
 async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { cohortId, userId, now, query }: ResultsRequest): Promise<CohortResults> {
-  const [trialRows, blocks, weekly, progress] = await Promise.all([
+  const [trialRows, blocks, water, progress] = await Promise.all([
     ds.query(q.trials, [cohortId, userId, now]) as Promise<TrialRow[]>,
     ds.query(q.blocks, [cohortId]) as Promise<BlockAggregate[]>,
-    ds.query(q.weeklyVolumes, [cohortId, now]) as Promise<WeeklyVolumeAggregate[]>,
+    ds.query(q.water, [cohortId, now]) as Promise<TrialWaterWeeks[]>,
     ds.query(q.progress, [cohortId]) as Promise<ProgressAggregate[]>,
   ]);
   const trials: CohortTrialAggregate[] = trialRows.map(({ exclusionReason, exclusionCreatedAt, excludedByMe, ...t }) => ({
@@ -323,7 +342,7 @@ async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { coho
     excludeFlagged: query.excludeFlagged,
   };
   // The cohort's own as-of date (trials in several zones): the request's UTC day.
-  return analyseCohort({ cohortId, asOf: now.toISOString().slice(0, 10), trials, blocks, weekly, progress, options });
+  return analyseCohort({ cohortId, asOf: now.toISOString().slice(0, 10), trials, blocks, water, progress, options });
 }
 
 export function cohortResultsService(ctx: AppContext) {

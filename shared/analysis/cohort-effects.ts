@@ -85,25 +85,22 @@ export interface BlockAggregate {
   surfacePlotsWithoutHarvest: number;
 }
 
-/** One ISO week of one trial's water events of one kind (olla refills, surface waterings). */
-export interface WeeklyVolumeAggregate {
+/**
+ * One trial's water events by ISO week, built in SQL as arrays (one row per trial, not one per
+ * trial, kind and week). Per kind (olla refills, surface waterings): the Mondays of the weeks with
+ * events of that kind, ascending, and each week's mean litres per event (the wrong-unit check).
+ */
+export interface TrialWaterWeeks {
   trialId: string;
-  series: 'olla_refill' | 'surface';
-  /** Monday of the ISO week. */
-  weekStart: string;
-  litresPerEvent: number;
-  events: number;
-  /** Weekdays with an event inside the season (planting to end or today): bit 0 = Monday … bit 6 = Sunday. */
-  dayMask: number;
-}
-
-/** Days with at least one refill or watering record: the weekday masks of both kinds ORed per week, then counted. */
-export function daysWithWater(weeks: readonly WeeklyVolumeAggregate[]): number {
-  const byWeek = new Map<string, number>();
-  for (const w of weeks) byWeek.set(w.weekStart, (byWeek.get(w.weekStart) ?? 0) | w.dayMask);
-  let days = 0;
-  for (const mask of byWeek.values()) for (let bit = 0; bit < 7; bit += 1) days += (mask >> bit) & 1;
-  return days;
+  /**
+   * Days inside the season (planting to end or today) with at least one refill or watering record:
+   * counted in SQL from per-week weekday masks, both kinds ORed, so a day with both counts once.
+   */
+  daysWithWater: number;
+  ollaWeekStarts: string[];
+  ollaLitresPerEvent: number[];
+  surfaceWeekStarts: string[];
+  surfaceLitresPerEvent: number[];
 }
 
 /** Cohort litres per treatment and ISO week with the running total (summed in SQL). */
@@ -371,39 +368,36 @@ export function regionLabel(latitudeDeg: number, longitudeDeg: number): string {
 /** looksLikeWrongVolumeUnit's default minimum number of values, passed explicitly so the early skip above cannot drift from it. */
 const WRONG_UNIT_MINIMUM_WEEKS = 4;
 
-const SERIES_LABEL: Record<WeeklyVolumeAggregate['series'], string> = { olla_refill: 'olla refills', surface: 'surface waterings' };
+type WaterSeries = QualityFlag['weeks'][number]['series'];
+
+const SERIES_LABEL: Record<WaterSeries, string> = { olla_refill: 'olla refills', surface: 'surface waterings' };
 
 /**
  * Wrong-unit flag for one trial: looksLikeWrongVolumeUnit on each kind of water event's series
  * of weekly mean litres per event (per event, so a week with more refills is not mistaken for
  * bigger ones; per kind, so pot refills are compared with pot refills). Hits are listed by kind,
  * then by week.
+ *
+ * Each series' first week is left out of the check: it holds the establishment water — the first
+ * fill of a dry pot (the whole pot, plus what the dry clay wall soaks up) and the watering that
+ * settles transplants — which is routinely several times a later week's top-up, often close to the
+ * gallon factor 3.785 (common practice, no source; our planting guide asks growers to log both).
  */
-export function wrongUnitFlag(weeks: readonly WeeklyVolumeAggregate[]): QualityFlag | null {
+export function wrongUnitFlag(w: TrialWaterWeeks): QualityFlag | null {
   const hits: QualityFlag['weeks'] = [];
-  const bySeries: Record<WeeklyVolumeAggregate['series'], WeeklyVolumeAggregate[]> = { olla_refill: [], surface: [] };
-  for (const w of weeks) bySeries[w.series]?.push(w);
-  for (const series of ['olla_refill', 'surface'] as const) {
-    const list = bySeries[series];
-    // Below the heuristic's minimum nothing can be flagged: skip the medians.
-    if (list.length < WRONG_UNIT_MINIMUM_WEEKS) continue;
-    // Whether a week is flagged depends only on its value and the series' median and MAD, not on
-    // the order: so the weeks are not sorted, only the (usually no) hits, by week (ISO dates sort
-    // as plain strings; ties keep their input order, as a stable sort of the weeks would).
-    const litres = new Array<number>(list.length);
-    for (let i = 0; i < list.length; i += 1) litres[i] = list[i]!.litresPerEvent;
-    const found = looksLikeWrongVolumeUnit(litres, { minimumValues: WRONG_UNIT_MINIMUM_WEEKS });
-    if (found.length > 1) {
-      found.sort((a, b) => {
-        const wa = list[a.index]!.weekStart;
-        const wb = list[b.index]!.weekStart;
-        return wa < wb ? -1 : wa > wb ? 1 : a.index - b.index;
-      });
-    }
-    for (const f of found) {
+  const bySeries: [WaterSeries, string[], number[]][] = [
+    ['olla_refill', w.ollaWeekStarts, w.ollaLitresPerEvent],
+    ['surface', w.surfaceWeekStarts, w.surfaceLitresPerEvent],
+  ];
+  for (const [series, weekStarts, perEvent] of bySeries) {
+    // Below the heuristic's minimum nothing can be flagged: skip the medians. The weeks come
+    // sorted from SQL, so index 0 is the first week (left out, see above) and hits stay in week order.
+    if (perEvent.length - 1 < WRONG_UNIT_MINIMUM_WEEKS) continue;
+    const checked = perEvent.slice(1);
+    for (const f of looksLikeWrongVolumeUnit(checked, { minimumValues: WRONG_UNIT_MINIMUM_WEEKS })) {
       hits.push({
         series,
-        weekStart: list[f.index]!.weekStart,
+        weekStart: weekStarts[f.index + 1]!,
         litresPerEvent: f.value,
         ratioToMedian: f.ratioToMedian,
         suggestedLitresPerEvent: f.suggestedValue,
@@ -868,19 +862,20 @@ export interface DescribedTrial {
 export function describeTrials(
   trials: readonly CohortTrialAggregate[],
   blocks: readonly BlockAggregate[],
-  weekly: readonly WeeklyVolumeAggregate[],
+  water: readonly TrialWaterWeeks[],
 ): DescribedTrial[] {
   const blocksByTrial = groupBy(blocks, (b) => b.trialId);
-  const weeksByTrial = groupBy(weekly, (w) => w.trialId);
+  const waterByTrial = new Map<string, TrialWaterWeeks>();
+  for (const w of water) waterByTrial.set(w.trialId, w);
   const prepared = trials.map((t) => {
     const pv = pairValues(blocksByTrial.get(t.trialId) ?? []);
     const estimates = {} as Record<EffectKey, TrialEffectEstimate>;
     for (const k of effectKeys) estimates[k] = trialEffect(pv.values[k], pv.totals[k]);
     const flags = ownFlags(t);
-    const weeks = weeksByTrial.get(t.trialId) ?? [];
-    const unit = wrongUnitFlag(weeks);
+    const weeks = waterByTrial.get(t.trialId);
+    const unit = weeks ? wrongUnitFlag(weeks) : null;
     if (unit) flags.push(unit);
-    return { t, pv, estimates, flags, weeks };
+    return { t, pv, estimates, flags, watered: weeks?.daysWithWater ?? 0 };
   });
   for (const key of effectKeys) {
     const withEstimate: { trialId: string; value: number }[] = [];
@@ -895,8 +890,7 @@ export function describeTrials(
       if (f) p.flags.push(f);
     }
   }
-  return prepared.map(({ t, pv, estimates, flags, weeks }) => {
-    const watered = daysWithWater(weeks);
+  return prepared.map(({ t, pv, estimates, flags, watered }) => {
     const effects = {} as Record<EffectKey, TrialEffect>;
     for (const k of effectKeys) {
       // Written out rather than spread (V8's slow path for a spread plus a key); same keys, same order.
@@ -945,7 +939,8 @@ export interface CohortAnalysisInput {
   asOf: string;
   trials: CohortTrialAggregate[];
   blocks: BlockAggregate[];
-  weekly: WeeklyVolumeAggregate[];
+  /** One row per trial with water events (trials without any have none). */
+  water: TrialWaterWeeks[];
   /** Summed in SQL over the shared trials the lead has not excluded. */
   progress: ProgressAggregate[];
   options: CohortOptions;
@@ -955,7 +950,7 @@ export interface CohortAnalysisInput {
 
 export function analyseCohort(input: CohortAnalysisInput): CohortResults {
   const { options } = input;
-  const described = input.described ?? describeTrials(input.trials, input.blocks, input.weekly);
+  const described = input.described ?? describeTrials(input.trials, input.blocks, input.water);
   const effects = {} as CohortResults['effects'];
   for (const key of effectKeys) {
     const candidates = described.filter((d) => !d.excluded);

@@ -14,6 +14,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cohortResultsQuerySchema, cohortResultsSchema, type CohortResults } from '@shared/schemas/cohort-results';
 import { recomputeCohortResultsFromRawRows } from '@server/services/cohort-results.service';
+import { parseEnv } from '@server/config/env';
+import { QUEUES } from '@server/jobs/queues';
+import { runRollupSweep } from '@server/jobs/rollup-sweep';
+import { startJobRunner } from '@server/jobs/runner';
+import { createLogger } from '@server/lib/logger';
+import { createMailer } from '@server/lib/mailer';
 import { makePairedTrial } from '../helpers/notebook-fixtures';
 import { ApiAgent, startTestApp, uniqueEmail, type TestApp } from '../helpers/test-app';
 
@@ -304,5 +310,54 @@ describe('cohort results from the log rollups', () => {
     const r = await expectRouteMatchesRawRows();
     expect(r.trials.map((x) => x.trialId).sort()).toEqual([a2.trial.id, b1.trial.id].sort());
     expect(await t.ds.query(`SELECT 1 FROM trial_week_water WHERE trial_id = $1`, [a1.trial.id])).toEqual([]);
+  });
+
+  it('are refreshed in the background by the rollup sweep, for shared trials only, and through the job queue', async () => {
+    const c1 = await makePairedTrial(growerB, { title: 'B sweep shared' });
+    const c2 = await makePairedTrial(growerB, { title: 'B sweep private' });
+    await season(growerB, c1, 0.9);
+    await season(growerB, c2, 1.1);
+    await ok(growerB.post(`/api/trials/${c1.trial.id}/shares`, { cohortId }), 201);
+    // Everything else the earlier tests left behind is brought up to date first, so the counts below are this test's.
+    await runRollupSweep(t.ds);
+    await ok(growerB.post(`/api/trials/${b1.trial.id}/water-events`, { plotId: plotOf(b1, 'olla'), occurredAt: '2026-07-03T06:00:00Z', kind: 'olla_refill', volumeL: 7 }), 201);
+    expect((await versions(b1.trial.id)).rolled).toBeLessThan((await versions(b1.trial.id)).current);
+
+    // One stale shared trial (b1); c1 was swept above; the private c2 never is (nothing reads its rollups).
+    expect(await runRollupSweep(t.ds, { batchSize: 1 })).toBe(1);
+    for (const id of [b1.trial.id, c1.trial.id]) {
+      const v = await versions(id);
+      expect(v.rolled).toBe(v.current);
+    }
+    expect((await versions(c2.trial.id)).rolled).toBeNull();
+    expect(await runRollupSweep(t.ds)).toBe(0);
+    // The page then has nothing to recompute, and still equals the raw rows.
+    await expectRouteMatchesRawRows();
+
+    // Through pg-boss: the queue's handler is the sweep, in small batches (maxTrials per run bounds it).
+    await ok(growerB.post(`/api/trials/${c1.trial.id}/water-events`, { plotId: plotOf(c1, 'surface'), occurredAt: '2026-07-04T06:00:00Z', kind: 'surface', volumeL: 9 }), 201);
+    const runner = await startJobRunner(
+      {
+        ds: t.ds,
+        env: parseEnv({ NODE_ENV: 'test', DATABASE_URL: t.databaseUrl, LOG_LEVEL: 'silent' }),
+        logger: createLogger('silent'),
+        mailer: createMailer(t.sink.url, 'Seepwise <test@seepwise.invalid>'),
+        publicUrl: 'http://seepwise.test',
+        now: () => t.clock.now ?? new Date(),
+      },
+      { connectionString: t.databaseUrl, schedule: false, work: false },
+    );
+    try {
+      await runner.boss.send(QUEUES.rollupSweep, {});
+      expect(await runner.drain(QUEUES.rollupSweep)).toBe(1);
+      const v = await versions(c1.trial.id);
+      expect(v.rolled).toBe(v.current);
+      const [job] = (await t.ds.query(`SELECT state, output FROM pgboss.job WHERE name = $1 ORDER BY created_on DESC LIMIT 1`, [QUEUES.rollupSweep])) as {
+        state: string;
+      }[];
+      expect(job!.state).toBe('completed');
+    } finally {
+      await runner.stop();
+    }
   });
 });

@@ -93,7 +93,7 @@ function cohort(extraBlocks: BlockAggregate[] = [], extraTrials: CohortTrialAggr
     asOf: '2026-10-01',
     trials,
     blocks,
-    weekly: [],
+    water: [],
     progress,
     options: { method: 'DL', confidence: 0.95, includeSinglePairs: false, excludeFlagged: false },
   });
@@ -179,7 +179,7 @@ describe('forestPlotSpec', () => {
       asOf: '2026-10-01',
       trials: [],
       blocks: [],
-      weekly: [],
+      water: [],
       progress: [],
       options: { method: 'DL', confidence: 0.95, includeSinglePairs: false, excludeFlagged: false },
     });

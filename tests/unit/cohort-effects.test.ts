@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
   analyseCohort,
-  daysWithWater,
   describeTrials,
   fastLeaveOneOut,
   pairValues,
@@ -12,7 +11,7 @@ import {
   type BlockAggregate,
   type CohortOptions,
   type CohortTrialAggregate,
-  type WeeklyVolumeAggregate,
+  type TrialWaterWeeks,
 } from '@shared/analysis/cohort-effects';
 import fc from 'fast-check';
 import { leaveOneOut, logRiskRatio, randomEffects } from '@shared/analysis/meta';
@@ -133,7 +132,7 @@ const reml: CohortOptions = { ...dl, method: 'REML' };
 function bcgCohort(options: CohortOptions, moderator?: (i: number) => Partial<CohortTrialAggregate>) {
   const trials = bcgRr.map((_, i) => trialAgg(i + 1, moderator?.(i)));
   const blocks = bcgRr.flatMap((r, i) => bcgBlocks(i + 1, r.effect, r.variance));
-  return analyseCohort({ cohortId: uuid(999), asOf: '2026-09-30', trials, blocks, weekly: [], progress: [], options });
+  return analyseCohort({ cohortId: uuid(999), asOf: '2026-09-30', trials, blocks, water: [], progress: [], options });
 }
 
 describe('per-trial effects from per-pair aggregates', () => {
@@ -330,7 +329,7 @@ describe('single-pair trials', () => {
     block(4, 'A', 25, 50), // one pair: season totals ln(25/50)
   ];
   const run = (includeSinglePairs: boolean) =>
-    analyseCohort({ cohortId: uuid(999), asOf: '2026-09-30', trials, blocks, weekly: [], progress: [], options: { ...dl, includeSinglePairs } });
+    analyseCohort({ cohortId: uuid(999), asOf: '2026-09-30', trials, blocks, water: [], progress: [], options: { ...dl, includeSinglePairs } });
 
   it('stays out by default and says why', () => {
     const r = run(false);
@@ -356,25 +355,41 @@ describe('single-pair trials', () => {
   });
 });
 
-describe('quality flags', () => {
-  const weeks = (trial: number, values: number[]): WeeklyVolumeAggregate[] =>
-    values.map((v, i) => ({
-      trialId: uuid(trial),
-      series: 'olla_refill',
-      weekStart: `2026-06-${String(1 + 7 * i).padStart(2, '0')}`,
-      litresPerEvent: v,
-      events: 3,
-      dayMask: 0b1,
-    }));
+const mondays = (n: number) => Array.from({ length: n }, (_, i) => new Date(Date.UTC(2026, 5, 1 + 7 * i)).toISOString().slice(0, 10));
+/** One trial's weekly litres per olla refill (and none at the surface), as the water query returns them. */
+const weeks = (trial: number, values: number[], surface: number[] = []): TrialWaterWeeks => ({
+  trialId: uuid(trial),
+  daysWithWater: values.length,
+  ollaWeekStarts: mondays(values.length),
+  ollaLitresPerEvent: values,
+  surfaceWeekStarts: mondays(surface.length),
+  surfaceLitresPerEvent: surface,
+});
 
+describe('quality flags', () => {
   it('flags a week of refills about 3.785 times the usual (US gallon = 3.785411784 L, NIST Handbook 44)', () => {
-    const f = wrongUnitFlag(weeks(1, [5, 5.2, 4.9, 5.1, 5 * LITRES_PER_US_GALLON, 5]))!;
+    const f = wrongUnitFlag(weeks(1, [5, 5.1, 5.2, 4.9, 5.1, 5 * LITRES_PER_US_GALLON, 5]))!;
     expect(f.kind).toBe('wrong-unit');
     expect(f.weeks).toHaveLength(1);
-    expect(f.weeks[0]).toMatchObject({ series: 'olla_refill', weekStart: '2026-06-29', kind: 'looks-like-gallons-converted-twice' });
+    expect(f.weeks[0]).toMatchObject({ series: 'olla_refill', weekStart: '2026-07-06', kind: 'looks-like-gallons-converted-twice' });
     expect(f.weeks[0]!.suggestedLitresPerEvent).toBeCloseTo(5, 10);
     // A season that simply rises (2 → 8 L per refill) is not flagged.
     expect(wrongUnitFlag(weeks(1, [2, 3, 4, 5, 6, 7, 8]))).toBeNull();
+    // Gallons typed into the litre field at the surface: 1/3.785 of the usual; olla weeks fine.
+    const g = wrongUnitFlag(weeks(1, [5, 5, 5, 5, 5], [12, 12.5, 11.8, 12 / LITRES_PER_US_GALLON, 12.2, 12]))!;
+    expect(g.weeks).toEqual([expect.objectContaining({ series: 'surface', weekStart: '2026-06-22', kind: 'looks-like-gallons-typed-as-litres' })]);
+    expect(g.weeks[0]!.suggestedLitresPerEvent).toBeCloseTo(12, 10);
+  });
+
+  it('does not flag the first week, when each dry pot is filled whole (establishment water; common practice, no source)', () => {
+    // Week 1: the first fill of a dry 10 L pot, ~4 times a later top-up of 2.5 L, as a gallon slip would be.
+    const firstFills = weeks(1, [10, 2.5, 2.6, 2.4, 2.5, 2.6]);
+    expect(wrongUnitFlag(firstFills)).toBeNull();
+    // The same value in a later week is flagged: the exemption is the first week only.
+    const later = wrongUnitFlag(weeks(1, [2.5, 2.5, 2.6, 10, 2.4, 2.5, 2.6]))!;
+    expect(later.weeks.map((w) => w.weekStart)).toEqual(['2026-06-22']);
+    // Fewer than four weeks after the first: too few for a median, nothing flagged (the heuristic's minimum).
+    expect(wrongUnitFlag(weeks(1, [2.5, 2.5, 10, 2.5]))).toBeNull();
   });
 
   it('flags mixed moisture methods and a closed trial without a harvest', () => {
@@ -397,7 +412,7 @@ describe('quality flags', () => {
     const centres = [-0.7, -0.72, -0.68, -0.75, -0.66, -0.71, 0.4];
     const trials = centres.map((_, i) => trialAgg(i + 1));
     const blocks = centres.flatMap((c, i) => [block(i + 1, 'A', 40 * Math.exp(c + 0.05), 40), block(i + 1, 'B', 40 * Math.exp(c - 0.05), 40)]);
-    const input = { cohortId: uuid(999), asOf: '2026-09-30', trials, blocks, weekly: [], progress: [] };
+    const input = { cohortId: uuid(999), asOf: '2026-09-30', trials, blocks, water: [], progress: [] };
     const all = analyseCohort({ ...input, options: dl });
     const flagged = all.trials.filter((t) => t.flags.length);
     expect(flagged.map((t) => t.trialId)).toEqual([uuid(7)]);
@@ -461,19 +476,11 @@ describe('exclusions, moderators and progress', () => {
     expect(r.trials[0]!.moderators.potShape).toBe('mixed');
   });
 
-  it('counts days with water from weekday masks, a day with a refill and a watering once', () => {
-    const w = (series: 'olla_refill' | 'surface', weekStart: string, dayMask: number) => ({
-      trialId: uuid(1),
-      series,
-      weekStart,
-      litresPerEvent: 5,
-      events: 1,
-      dayMask,
-    });
-    // Week 1: refills Mon, Wed (0b101), waterings Wed, Fri (0b10100) → Mon, Wed, Fri = 3; week 2: Sunday only (bit 6) = 1.
-    expect(daysWithWater([w('olla_refill', '2026-06-01', 0b101), w('surface', '2026-06-01', 0b10100), w('surface', '2026-06-08', 0b1000000)])).toBe(4);
-    const [d] = describeTrials([trialAgg(1, { expectedDays: 8 })], [], [w('olla_refill', '2026-06-01', 0b1111)]);
+  it('takes days with water from the water query (counted in SQL) into completeness', () => {
+    const [d] = describeTrials([trialAgg(1, { expectedDays: 8 })], [], [{ ...weeks(1, [5]), daysWithWater: 4 }]);
     expect(d!.row.completeness).toMatchObject({ expectedDays: 8, daysWithWater: 4, share: 0.5 });
+    const [none] = describeTrials([trialAgg(2, { expectedDays: 8 })], [], [{ ...weeks(1, [5]), daysWithWater: 4 }]);
+    expect(none!.row.completeness).toMatchObject({ daysWithWater: 0, share: 0 });
   });
 
   it('turns cohort litres into depth over the treatment area', () => {
@@ -494,7 +501,7 @@ describe('exclusions, moderators and progress', () => {
       asOf: '2026-09-30',
       trials: [trialAgg(1)],
       blocks: [block(1, 'A', 20, 40), block(1, 'B', 22, 40)],
-      weekly: [],
+      water: [],
       progress: [],
       options: dl,
     });

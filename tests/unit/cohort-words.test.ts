@@ -71,7 +71,7 @@ function results(trials: CohortTrialAggregate[], blocks: BlockAggregate[]): Coho
     asOf: '2026-10-01',
     trials,
     blocks,
-    weekly: [],
+    water: [],
     progress: [],
     options: { method: 'DL', confidence: 0.95, includeSinglePairs: false, excludeFlagged: false },
   });
