@@ -107,7 +107,7 @@ export async function runAnalysisOnly(o: AnalysisOnlyOptions) {
     log(`${statements.length} SQL statements per request:\n  ${statements.join('\n  ')}`);
     const plans = [];
     for (const [name, sql, params] of [
-      ['analysis.trial', analysisQueries.trial, [ids.featuredTrialId]],
+      ['analysis.trial', analysisQueries.trial, [ids.featuredTrialId, today()]],
       ['analysis.plots', analysisQueries.plots, [ids.featuredTrialId]],
       ['analysis.dailyWater', analysisQueries.dailyWater, [ids.featuredTrialId]],
       ['analysis.weather', analysisQueries.weather, [ids.featuredTrialId, today()]],

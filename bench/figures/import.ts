@@ -59,7 +59,7 @@ export async function measureImport(o: { child: ChildServer; client: SessionClie
     const dateColumn = mapping.takenAt!;
     const detection = detectDateFormat(data.slice(0, 200).map((r) => r[dateColumn] ?? ''));
     if (!detection.format) throw new Error(`date format not detected: ${JSON.stringify(detection)}`);
-    const { records, errors } = normaliseRows(data, { kind, mapping, units: {}, dateFormat: detection.format, offsetMinutes: -420, headers });
+    const { records, errors } = normaliseRows(data, { kind, mapping, units: {}, dateFormat: detection.format, timeZone: 'America/Phoenix' /* UTC−7 all year, as the old fixed offset */, headers });
     if (errors.length) throw new Error(`normalise: ${errors.length} errors, first ${JSON.stringify(errors[0])}`);
     const t2 = performance.now();
     const payload = JSON.stringify({ kind, fileName: `logger-${run + 1}.csv`, rows: records });

@@ -69,7 +69,7 @@ export async function compareRouteWithSql(o: {
 export function bareAnalysis(ds: DataSource, trialId: string, today: () => string) {
   return async () => {
     const [trial] = (await Promise.all([
-      ds.query(analysisQueries.trial, [trialId]),
+      ds.query(analysisQueries.trial, [trialId, today()]),
       ds.query(analysisQueries.plots, [trialId]),
       ds.query(analysisQueries.dailyWater, [trialId]),
       ds.query(analysisQueries.weather, [trialId, today()]),

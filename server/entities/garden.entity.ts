@@ -37,6 +37,10 @@ export class GardenEntity {
   @Column({ type: 'text', default: '' })
   notes: string;
 
+  /** IANA time-zone name (e.g. America/Denver): the garden's calendar days and its "today". */
+  @Column({ name: 'time_zone', type: 'varchar', length: 64, default: 'UTC' })
+  timeZone: string;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 

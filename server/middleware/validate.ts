@@ -18,7 +18,11 @@ function issueFacts(i: z.core.$ZodIssue): Record<string, string | number | boole
 
 /** Turns zod issues into `{ path, message, issue }` for field-level messages. */
 export function zodIssues(error: z.ZodError) {
-  return error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message, issue: issueFacts(i) }));
+  return error.issues.map((i) => {
+    // A schema's own check may name its case (`params: { reason }`), worded by the client like a service's field reason.
+    const reason = i.code === 'custom' && typeof i.params?.reason === 'string' ? i.params.reason : undefined;
+    return { path: i.path.map(String).join('.'), message: i.message, ...(reason ? { reason } : {}), issue: issueFacts(i) };
+  });
 }
 
 /**

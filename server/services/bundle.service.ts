@@ -70,9 +70,13 @@ export function bundleService(ctx: AppContext) {
 
   return {
     async streamTrialBundle(res: Response, trialId: string, t: Translate) {
-      const [trial] = (await ctx.ds.query(`SELECT title, crop, crop_name, variety, planting_date, end_date, design, treatments, question, randomisation_seed FROM trials WHERE id = $1`, [
-        trialId,
-      ])) as {
+      // generated_on: the request's day in the garden's time zone.
+      const [trial] = (await ctx.ds.query(
+        `SELECT t.title, t.crop, t.crop_name, t.variety, t.planting_date, t.end_date, t.design, t.treatments, t.question, t.randomisation_seed,
+                to_char(($2::timestamptz AT TIME ZONE g.time_zone)::date, 'YYYY-MM-DD') AS generated_on
+           FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1`,
+        [trialId, ctx.now()],
+      )) as {
         title: string;
         crop: Crop;
         crop_name: string;
@@ -83,6 +87,7 @@ export function bundleService(ctx: AppContext) {
         treatments: string[];
         question: string;
         randomisation_seed: string | null;
+        generated_on: string;
       }[];
       const a = await analysis.forTrial(trialId);
       const charts = trialCharts(a, trial!.treatments, { units: 'metric', width: 640, t });
@@ -103,7 +108,7 @@ export function bundleService(ctx: AppContext) {
         question: trial!.question,
         randomisationSeed: trial!.randomisation_seed,
         analysis: a,
-        generatedOn: ctx.now().toISOString().slice(0, 10),
+        generatedOn: trial!.generated_on,
         files,
         t,
       });
@@ -131,6 +136,7 @@ export function bundleService(ctx: AppContext) {
         'data/trials.csv',
         ...rendered.flatMap((c) => [`charts/${c.id}.svg`, `charts/${c.id}.png`]),
       ];
+      // A cohort spans gardens in several time zones: its report is dated by the request's UTC day.
       const markdown = cohortReportMarkdown({ cohortName: cohort!.name, licence: cohort!.licence, results, generatedOn: ctx.now().toISOString().slice(0, 10), files, t });
       const { zip, finished } = startZip(res, `seepwise-cohort-${cohortId.slice(0, 8)}-report.zip`);
       zip.append(markdown, { name: 'methods-and-results.md' });

@@ -38,6 +38,15 @@ const sharedTrials = `
   )`;
 
 /**
+ * Each shared trial's season so far: planting to its end or today, whichever is first, where today
+ * is the request's instant (`param`, a timestamptz) as a day in the trial's garden's time zone.
+ */
+const spansAt = (param: string) => `
+    SELECT sh.id, sh.planting_date, LEAST(COALESCE(sh.end_date, d.today), d.today) AS as_of, g.time_zone
+      FROM shared sh JOIN gardens g ON g.id = sh.garden_id
+      CROSS JOIN LATERAL (SELECT (${param}::timestamptz AT TIME ZONE g.time_zone)::date AS today) d`;
+
+/**
  * The end of both water queries: from `wk` (trial_id, week, mask = weekdays with water inside the
  * season, olla / surface = mean litres per event of that kind, NULL without one), one row per trial
  * with each kind's weeks and means as arrays in week order, and the days with water (bit_count of
@@ -58,10 +67,10 @@ const waterArrays = `
  * for the API test that compares both after a sequence of writes and for the benchmark's before/after.
  */
 export const cohortResultsRawQueries = {
-  /** One row per shared trial: description, season length, harvest and moisture counts, pot and plot features, exclusion. $2 = caller, $3 = today. */
+  /** One row per shared trial: description, season length, harvest and moisture counts, pot and plot features, exclusion. $2 = caller, $3 = the request's instant (each trial's today is its garden's). */
   trials: `
     WITH ${sharedTrials},
-    spans AS (SELECT id, planting_date, LEAST(COALESCE(end_date, $3::date), $3::date) AS as_of FROM shared),
+    spans AS (${spansAt('$3')}),
     harvest_counts AS (SELECT h.trial_id, count(*)::int AS n FROM harvests h JOIN shared sh ON sh.id = h.trial_id GROUP BY h.trial_id),
     moisture AS (
       SELECT trial_id, array_agg(method ORDER BY method) AS methods
@@ -132,15 +141,15 @@ export const cohortResultsRawQueries = {
   /**
    * One row per trial with water events: per kind, its ISO weeks (Mondays) in order and each week's
    * mean litres per event (the wrong-unit check), and the days inside the season, planting to end
-   * or today, with any water (completeness). $2 = today.
+   * or the garden's today, with any water (completeness). $2 = the request's instant; days and weeks are the garden's.
    */
   water: `
     WITH ${sharedTrials},
-    spans AS (SELECT id, planting_date, LEAST(COALESCE(end_date, $2::date), $2::date) AS as_of FROM shared),
+    spans AS (${spansAt('$2')}),
     -- Day of the week by date arithmetic from a known Monday (1970-01-05): no time-zone work per row.
     ev AS (
       SELECT trial_id, kind, volume_l, day, (day - DATE '1970-01-05') % 7 AS dow, day BETWEEN planting_date AND as_of AS in_season
-        FROM (SELECT e.trial_id, e.kind, e.volume_l, (e.occurred_at AT TIME ZONE 'UTC')::date AS day, sp.planting_date, sp.as_of
+        FROM (SELECT e.trial_id, e.kind, e.volume_l, (e.occurred_at AT TIME ZONE sp.time_zone)::date AS day, sp.planting_date, sp.as_of
                 FROM water_events e JOIN spans sp ON sp.id = e.trial_id) d),
     wk AS (
       SELECT trial_id, day - dow AS week, COALESCE(bit_or(1 << dow) FILTER (WHERE in_season), 0) AS mask,
@@ -155,10 +164,10 @@ export const cohortResultsRawQueries = {
    */
   progress: `
     WITH ${sharedTrials},
-    counted AS (SELECT sh.id FROM shared sh LEFT JOIN trial_exclusions x ON x.cohort_id = $1 AND x.trial_id = sh.id WHERE x.id IS NULL),
+    counted AS (SELECT sh.id, g.time_zone FROM shared sh JOIN gardens g ON g.id = sh.garden_id LEFT JOIN trial_exclusions x ON x.cohort_id = $1 AND x.trial_id = sh.id WHERE x.id IS NULL),
     per_trial AS (
       SELECT trial_id, day - (day - DATE '1970-01-05') % 7 AS week, treatment, sum(volume_l) AS litres
-        FROM (SELECT e.trial_id, (e.occurred_at AT TIME ZONE 'UTC')::date AS day, p.treatment, e.volume_l
+        FROM (SELECT e.trial_id, (e.occurred_at AT TIME ZONE c.time_zone)::date AS day, p.treatment, e.volume_l
                 FROM water_events e JOIN counted c ON c.id = e.trial_id JOIN plots p ON p.id = e.plot_id
                WHERE p.treatment IN ('olla', 'surface')) d
        GROUP BY 1, 2, 3),
@@ -195,10 +204,10 @@ export const cohortResultsQueries = {
     SELECT sh.id FROM shared sh JOIN trials t ON t.id = sh.id LEFT JOIN trial_log_summaries ls ON ls.trial_id = sh.id
      WHERE ls.trial_id IS NULL OR ls.data_version <> t.data_version`,
 
-  /** As `cohortResultsRawQueries.trials`; harvest counts and moisture methods from the trial summaries. $2 = caller, $3 = today. */
+  /** As `cohortResultsRawQueries.trials`; harvest counts and moisture methods from the trial summaries. $2 = caller, $3 = the request's instant. */
   trials: `
     WITH ${summarisedTrials},
-    spans AS (SELECT id, planting_date, LEAST(COALESCE(end_date, $3::date), $3::date) AS as_of FROM shared),
+    spans AS (${spansAt('$3')}),
     plot_features AS (
       SELECT p.trial_id, array_agg(DISTINCT p.setting::text) AS settings, array_agg(DISTINCT p.mulch) AS mulch,
              array_agg(DISTINCT p.lid) FILTER (WHERE p.treatment = 'olla') AS lids
@@ -258,11 +267,11 @@ export const cohortResultsQueries = {
 
   /**
    * As `cohortResultsRawQueries.water`, from `trial_week_water`: the week's weekday mask is cut to
-   * the season (planting to end or today) here, bit i standing for week_start + i days. $2 = today.
+   * the season (planting to end or the garden's today) here, bit i standing for week_start + i days. $2 = the request's instant.
    */
   water: `
     WITH ${summarisedTrials},
-    spans AS (SELECT id, planting_date, LEAST(COALESCE(end_date, $2::date), $2::date) AS as_of FROM shared),
+    spans AS (${spansAt('$2')}),
     cut AS (
       SELECT ww.trial_id, ww.week_start AS week, bit_or(ww.day_mask) AS mask,
              sum(ww.litres) FILTER (WHERE ww.kind = 'olla_refill') / sum(ww.events) FILTER (WHERE ww.kind = 'olla_refill') AS olla,
@@ -299,8 +308,8 @@ type TrialRow = Omit<CohortTrialAggregate, 'exclusion'> & { exclusionReason: str
 interface ResultsRequest {
   cohortId: string;
   userId: string;
-  /** YYYY-MM-DD, the server's today. */
-  today: string;
+  /** The request's instant; each trial's today is this instant's day in its garden's time zone. */
+  now: Date;
   query: CohortResultsQuery;
 }
 
@@ -312,11 +321,11 @@ export function recomputeCohortResultsFromRawRows(ds: DataSource, r: ResultsRequ
   return cohortResultsFrom(ds, cohortResultsRawQueries, r);
 }
 
-async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { cohortId, userId, today, query }: ResultsRequest): Promise<CohortResults> {
+async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { cohortId, userId, now, query }: ResultsRequest): Promise<CohortResults> {
   const [trialRows, blocks, water, progress] = await Promise.all([
-    ds.query(q.trials, [cohortId, userId, today]) as Promise<TrialRow[]>,
+    ds.query(q.trials, [cohortId, userId, now]) as Promise<TrialRow[]>,
     ds.query(q.blocks, [cohortId]) as Promise<BlockAggregate[]>,
-    ds.query(q.water, [cohortId, today]) as Promise<TrialWaterWeeks[]>,
+    ds.query(q.water, [cohortId, now]) as Promise<TrialWaterWeeks[]>,
     ds.query(q.progress, [cohortId]) as Promise<ProgressAggregate[]>,
   ]);
   const trials: CohortTrialAggregate[] = trialRows.map(({ exclusionReason, exclusionCreatedAt, excludedByMe, ...t }) => ({
@@ -332,7 +341,8 @@ async function cohortResultsFrom(ds: DataSource, q: CohortResultsQueries, { coho
     includeSinglePairs: query.includeSinglePairs,
     excludeFlagged: query.excludeFlagged,
   };
-  return analyseCohort({ cohortId, asOf: today, trials, blocks, water, progress, options });
+  // The cohort's own as-of date (trials in several zones): the request's UTC day.
+  return analyseCohort({ cohortId, asOf: now.toISOString().slice(0, 10), trials, blocks, water, progress, options });
 }
 
 export function cohortResultsService(ctx: AppContext) {
@@ -340,7 +350,7 @@ export function cohortResultsService(ctx: AppContext) {
     async results(cohortId: string, userId: string, query: CohortResultsQuery): Promise<CohortResults> {
       const stale = (await ctx.ds.query(cohortResultsQueries.stale, [cohortId])) as { id: string }[];
       if (stale.length > 0) await refreshTrialRollups(ctx.ds, stale.map((t) => t.id));
-      return cohortResultsFrom(ctx.ds, cohortResultsQueries, { cohortId, userId, today: ctx.now().toISOString().slice(0, 10), query });
+      return cohortResultsFrom(ctx.ds, cohortResultsQueries, { cohortId, userId, now: ctx.now(), query });
     },
 
     /** Leaves a shared trial out of the cohort's pooled results, with the reason. */

@@ -37,6 +37,8 @@ export function safeText(expr: string): string {
 }
 
 const iso = (expr: string) => `to_char(${expr} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"')`;
+/** The calendar day of an instant in the garden's time zone (`g` = gardens), the day the analysis counts it on. */
+const gardenDay = (expr: string) => `to_char(${expr} AT TIME ZONE g.time_zone, 'YYYY-MM-DD')`;
 
 /** Who the row belongs to: the trial id for its owner, stable pseudonymous codes in cohort exports. */
 function idColumns(scope: ExportScope): ExportColumn[] {
@@ -84,12 +86,13 @@ export const exportTables: ExportTable[] = [
   {
     name: 'water-events',
    
-    from: 'water_events x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id',
+    from: 'water_events x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id JOIN gardens g ON g.id = t.garden_id',
     orderBy: 'x.occurred_at, p.label, x.id',
     columns: (scope) => [
       ...idColumns(scope),
       ...plotCols,
       { name: 'occurred_at', type: 'datetime', unit: 'UTC', sql: iso('x.occurred_at') },
+      { name: 'day', type: 'date', unit: '', sql: gardenDay('x.occurred_at') },
       { name: 'kind', type: 'text', unit: '', sql: 'x.kind' },
       { name: 'volume_l', type: 'number', unit: 'L', sql: 'x.volume_l' },
       { name: 'source', type: 'text', unit: '', sql: 'x.source' },
@@ -100,12 +103,13 @@ export const exportTables: ExportTable[] = [
   {
     name: 'moisture-readings',
    
-    from: 'moisture_readings x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id',
+    from: 'moisture_readings x JOIN plots p ON p.id = x.plot_id JOIN trials t ON t.id = x.trial_id JOIN gardens g ON g.id = t.garden_id',
     orderBy: 'x.taken_at, p.label, x.id',
     columns: (scope) => [
       ...idColumns(scope),
       ...plotCols,
       { name: 'taken_at', type: 'datetime', unit: 'UTC', sql: iso('x.taken_at') },
+      { name: 'day', type: 'date', unit: '', sql: gardenDay('x.taken_at') },
       { name: 'method', type: 'text', unit: '', sql: 'x.method' },
       { name: 'depth_cm', type: 'number', unit: 'cm', sql: 'x.depth_cm' },
       { name: 'value', type: 'number', unit: 'seeUnitColumn', sql: 'x.value' },

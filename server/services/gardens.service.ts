@@ -15,6 +15,7 @@ interface GardenRow {
   soilTexture: Garden['soilTexture'];
   coastal: boolean;
   notes: string;
+  timeZone: string;
   trialCount: number;
   createdAt: Date;
   updatedAt: Date;
@@ -22,7 +23,7 @@ interface GardenRow {
 
 const gardenSelect = `
   SELECT g.id, g.name, g.latitude_deg AS "latitudeDeg", g.longitude_deg AS "longitudeDeg", g.elevation_m AS "elevationM",
-         g.soil_texture AS "soilTexture", g.coastal, g.notes, g.created_at AS "createdAt", g.updated_at AS "updatedAt",
+         g.soil_texture AS "soilTexture", g.coastal, g.notes, g.time_zone AS "timeZone", g.created_at AS "createdAt", g.updated_at AS "updatedAt",
          (SELECT count(*)::int FROM trials t WHERE t.garden_id = g.id) AS "trialCount"
     FROM gardens g`;
 
@@ -48,6 +49,19 @@ export function presentWeatherDay(w: WeatherDayEntity) {
   };
 }
 
+/**
+ * The schema has checked the name against Intl; PostgreSQL has its own copy of the IANA database,
+ * and a zone it lacks would make every daily query fail. Refused here as the schema refuses.
+ */
+async function assertPostgresKnowsZone(ctx: AppContext, timeZone: string | undefined) {
+  if (timeZone === undefined) return;
+  const known = (await ctx.ds.query('SELECT 1 FROM pg_timezone_names WHERE name = $1', [timeZone])) as unknown[];
+  if (known.length === 0) {
+    const message = `"${timeZone}" is not a time zone the database knows; choose a neighbouring zone with the same clock.`;
+    throw AppError.validation(message, [{ path: 'timeZone', message, reason: 'unknown_time_zone' }]).because('unknown_time_zone');
+  }
+}
+
 export function gardensService(ctx: AppContext) {
   const gardens = ctx.ds.getRepository(GardenEntity);
   const weather = ctx.ds.getRepository(WeatherDayEntity);
@@ -67,10 +81,12 @@ export function gardensService(ctx: AppContext) {
       return presentGarden(await load(id));
     },
     async create(ownerId: string, input: CreateGardenInput): Promise<Garden> {
+      await assertPostgresKnowsZone(ctx, input.timeZone);
       const { identifiers } = await gardens.insert({ ...input, ownerId });
       return presentGarden(await load(identifiers[0]!.id as string));
     },
     async update(id: string, input: UpdateGardenInput): Promise<Garden> {
+      await assertPostgresKnowsZone(ctx, input.timeZone);
       if (Object.keys(input).length) await gardens.update(id, input);
       return presentGarden(await load(id));
     },

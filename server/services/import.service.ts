@@ -2,6 +2,7 @@ import { hash } from 'node:crypto';
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type { ImportKind, RowError } from '@shared/import/csv-import';
+import { addDays, dayInTimeZone } from '@shared/time-zone';
 import { harvestInputSchema, moistureReadingInputSchema, waterEventInputSchema, weatherDayInputSchema } from '@shared/schemas/logs';
 import type { PoolClient } from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
@@ -158,17 +159,23 @@ export function importService(ctx: AppContext) {
      * already imported.
      */
     async importRows(trialId: string, userId: string, kind: ImportKind, rows: unknown[]) {
-      const [trial] = (await ctx.ds.query('SELECT garden_id, planting_date, end_date, status FROM trials WHERE id = $1', [trialId])) as {
+      const [trial] = (await ctx.ds.query(
+        `SELECT t.garden_id, to_char(t.planting_date, 'YYYY-MM-DD') AS planting_date, to_char(t.end_date, 'YYYY-MM-DD') AS end_date, t.status, g.time_zone
+           FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1`,
+        [trialId],
+      )) as {
         garden_id: string;
         planting_date: string;
         end_date: string | null;
         status: string;
+        time_zone: string;
       }[];
       if (!trial) throw AppError.notFound('Trial');
       if (trial.status === 'closed') throw new AppError('conflict', 'This trial is closed and read-only. Reopen it to import.').because('trial_closed_import');
       const plots = (await ctx.ds.query('SELECT id, label FROM plots WHERE trial_id = $1', [trialId])) as { id: string; label: string }[];
       const plotByLabel = new Map(plots.map((p) => [p.label.toLowerCase(), p.id]));
-      const tomorrow = new Date(ctx.now().getTime() + 36 * 3600 * 1000).toISOString().slice(0, 10);
+      // Days are the garden's (its time zone): a row's day and "tomorrow", as logs.service checks one entry.
+      const tomorrow = addDays(dayInTimeZone(ctx.now(), trial.time_zone), 1);
       const lastDay = trial.end_date && trial.end_date < tomorrow ? trial.end_date : tomorrow;
 
       const errors: RowError[] = [];
@@ -216,8 +223,7 @@ export function importService(ctx: AppContext) {
           }
         }
         const at = String(value[when]);
-        // An instant ending in Z carries its UTC day in its first ten characters; other offsets go through Date.
-        const day = at.length > 10 ? (at.endsWith('Z') ? at.slice(0, 10) : new Date(at).toISOString().slice(0, 10)) : at;
+        const day = at.length > 10 ? dayInTimeZone(at, trial.time_zone) : at;
         if (day < trial.planting_date || day > lastDay) {
           errors.push({
             line,

@@ -25,8 +25,9 @@ const staleAmong = `
    WHERE t.id = ANY($1::uuid[]) AND (s.trial_id IS NULL OR s.data_version <> t.data_version)`;
 
 /**
- * The week of an event: its UTC date minus the days since Monday, counted from a known Monday
- * (1970-01-05), as the cohort queries have always done it; the same expression gives the weekday bit.
+ * The week of an event: its date in the garden's time zone minus the days since Monday, counted from
+ * a known Monday (1970-01-05); the same expression gives the weekday bit. A garden's zone change
+ * bumps its trials' data_version (migration GardenTimeZone), so the weeks follow it.
  */
 const refreshSql = {
   clearWeeks: `DELETE FROM trial_week_water WHERE trial_id = ANY($1::uuid[])`,
@@ -37,7 +38,8 @@ const refreshSql = {
       FROM (SELECT e.trial_id, e.kind, COALESCE(p.treatment, '') AS treatment, e.volume_l, d.day, (d.day - DATE '1970-01-05') % 7 AS dow
               FROM water_events e
               JOIN plots p ON p.id = e.plot_id
-              CROSS JOIN LATERAL (SELECT (e.occurred_at AT TIME ZONE 'UTC')::date AS day) d
+              JOIN trials t ON t.id = e.trial_id JOIN gardens g ON g.id = t.garden_id
+              CROSS JOIN LATERAL (SELECT (e.occurred_at AT TIME ZONE g.time_zone)::date AS day) d
              WHERE e.trial_id = ANY($1::uuid[])) ev
      GROUP BY trial_id, kind, treatment, day - dow`,
   plots: `

@@ -108,14 +108,17 @@ const plotNotInTrial = () =>
 const potNotInPlot = () =>
   AppError.validation('That pot does not sit in this plot.', [{ path: 'potId', message: 'That pot does not sit in this plot.', reason: 'pot_not_in_plot' }]).because('pot_not_in_plot');
 
-/** The UTC day a log falls on, as YYYY-MM-DD. */
+/**
+ * A date-only log's day, or a time PostgreSQL cannot read (year 0, which ISO allows): those go into
+ * the date checks as text (the latter as its UTC day, refused anyway: it is before any planting).
+ */
+const dayAsText = (cfg: LogKindConfig, raw: string) => cfg.dateOnly || /^0000-/.test(raw);
+
+/** The UTC day a log falls on, as YYYY-MM-DD (see dayAsText). */
 function logDay(cfg: LogKindConfig, input: Record<string, unknown>) {
   const raw = input[cfg.timeField] as string;
   return cfg.dateOnly ? raw : new Date(raw).toISOString().slice(0, 10);
 }
-
-/** The last day a running trial takes logs for: 36 hours on, so a garden ahead of UTC can log its today. */
-const lastOpenDay = (now: Date) => new Date(now.getTime() + 36 * 3600 * 1000).toISOString().slice(0, 10);
 
 function dateOutsideTrial(cfg: LogKindConfig, day: string, plantingDate: string, endDate: string | null) {
   const ends = endDate ? `ends ${endDate}` : 'still running';
@@ -124,12 +127,21 @@ function dateOutsideTrial(cfg: LogKindConfig, day: string, plantingDate: string,
   ]).because('date_outside_trial');
 }
 
-/** The log's date must fall within the trial: from planting to the end date (or tomorrow, for an open trial). */
+/**
+ * The log's date must fall within the trial: from planting to the end date (or tomorrow, for an
+ * open trial). Days are the garden's: the time's day and "tomorrow" are taken in its time zone.
+ */
 async function assertWithinTrial(em: EntityManager, trialId: string, cfg: LogKindConfig, input: Record<string, unknown>, now: Date) {
-  const [t] = (await em.query('SELECT planting_date, end_date FROM trials WHERE id = $1', [trialId])) as { planting_date: string; end_date: string | null }[];
+  const raw = input[cfg.timeField] as string;
+  const [t] = (await em.query(
+    `SELECT to_char(t.planting_date, 'YYYY-MM-DD') AS planting_date, to_char(t.end_date, 'YYYY-MM-DD') AS end_date,
+            to_char(($2::timestamptz AT TIME ZONE g.time_zone)::date + 1, 'YYYY-MM-DD') AS tomorrow,
+            ${dayAsText(cfg, raw) ? '$3::text' : "to_char($3::timestamptz AT TIME ZONE g.time_zone, 'YYYY-MM-DD')"} AS day
+       FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1`,
+    [trialId, now, dayAsText(cfg, raw) ? logDay(cfg, input) : raw],
+  )) as { planting_date: string; end_date: string | null; tomorrow: string; day: string }[];
   if (!t) throw AppError.notFound('Trial');
-  const day = logDay(cfg, input);
-  const tomorrow = lastOpenDay(now);
+  const { day, tomorrow } = t;
   const last = t.end_date && t.end_date < tomorrow ? t.end_date : tomorrow;
   if (day < t.planting_date || day > last) throw dateOutsideTrial(cfg, day, t.planting_date, t.end_date);
 }
@@ -154,6 +166,8 @@ interface WriteOutcome {
   _status: TrialStatus;
   _plantingDate: string;
   _endDate: string | null;
+  /** The log's day in the garden's zone, as compared. */
+  _day: string;
   _plotOk: boolean;
   _dateOk: boolean;
   _potOk: boolean;
@@ -180,17 +194,21 @@ function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, user
   const plotId = input.plotId;
   const plotOk = plotId === null || plotId === undefined ? String(!cfg.plotRequired) : `EXISTS (SELECT 1 FROM plots pl WHERE pl.id = ${p(plotId)} AND pl.trial_id = t.id)`;
   const potOk = kind === 'water-events' && input.potId ? `EXISTS (SELECT 1 FROM pots o WHERE o.id = ${p(input.potId)} AND o.plot_id = ${p(plotId ?? null)})` : 'true';
-  // Compared as text, as the day and the trial's dates always were (so a year-0 day is refused, not a cast error).
-  const dateOk = `${p(logDay(cfg, input))}::text COLLATE "C" BETWEEN to_char(t.planting_date, 'YYYY-MM-DD') AND to_char(LEAST(t.end_date, ${p(lastOpenDay(opts.now))}::date), 'YYYY-MM-DD')`;
+  // The garden's day of the log and the garden's tomorrow (days are the garden's, see assertWithinTrial),
+  // compared as text, as the day and the trial's dates always were (see dayAsText for year 0).
+  const raw = String(input[cfg.timeField]);
+  const day = dayAsText(cfg, raw) ? `${p(logDay(cfg, input))}::text` : `to_char(${p(raw)}::timestamptz AT TIME ZONE g.time_zone, 'YYYY-MM-DD')`;
+  const tomorrow = `(${p(opts.now)}::timestamptz AT TIME ZONE g.time_zone)::date + 1`;
+  const dateOk = `d.day COLLATE "C" BETWEEN to_char(t.planting_date, 'YYYY-MM-DD') AND to_char(LEAST(t.end_date, ${tomorrow}), 'YYYY-MM-DD')`;
   const key = input.idempotencyKey as string | undefined;
   const keyParam = key ? p(key) : '';
   const changes = p(JSON.stringify({ ...input }));
   const sql = `
     WITH c AS (
-      SELECT t.status, t.planting_date, t.end_date,
+      SELECT t.status, t.planting_date, t.end_date, d.day,
              t.status = 'closed' OR EXISTS (SELECT 1 FROM trial_shares s WHERE s.trial_id = t.id AND s.withdrawn_at IS NULL) AS must_audit,
              ${plotOk} AS plot_ok, ${dateOk} AS date_ok, ${potOk} AS pot_ok
-        FROM trials t
+        FROM trials t JOIN gardens g ON g.id = t.garden_id CROSS JOIN LATERAL (SELECT ${day} AS day) d
        WHERE t.id = $1${opts.ownerOnly ? ' AND t.owner_id = $2' : ''}
     ),${key ? `
     prior AS (SELECT * FROM ${cfg.table} WHERE trial_id = $1 AND idempotency_key = ${keyParam}),` : ''}
@@ -205,7 +223,7 @@ function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, user
       INSERT INTO audit_entries (trial_id, actor_id, action, entity_type, entity_id, changes)
       SELECT i.trial_id, $2, 'create', '${cfg.entityType}', i.id, ${changes} FROM ins i CROSS JOIN c WHERE c.must_audit
     )
-    SELECT c.status AS "_status", c.planting_date AS "_plantingDate", c.end_date AS "_endDate", c.plot_ok AS "_plotOk", c.date_ok AS "_dateOk", c.pot_ok AS "_potOk", r.*
+    SELECT c.status AS "_status", c.planting_date AS "_plantingDate", c.end_date AS "_endDate", c.day AS "_day", c.plot_ok AS "_plotOk", c.date_ok AS "_dateOk", c.pot_ok AS "_potOk", r.*
       FROM c LEFT JOIN (
         SELECT true AS "_created", ${selectList(cfg)} ${fromClause(cfg, 'ins')}${
           key ? `
@@ -236,8 +254,11 @@ export function logsService(ctx: AppContext) {
       const where: string[] = ['l.trial_id = $1'];
       const params: unknown[] = [trialId];
       if (q.plotId) where.push(`l.plot_id = $${params.push(q.plotId)}`);
-      if (q.from) where.push(`l.${cfg.timeColumn} >= $${params.push(q.from)}::date`);
-      if (q.to) where.push(`l.${cfg.timeColumn} < ($${params.push(q.to)}::date + 1)`);
+      // from/to are the garden's days: a time column is compared with that day's midnight in the garden's zone.
+      const zone = '(SELECT g.time_zone FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1)';
+      const dayStart = (p: string) => (cfg.dateOnly ? p : `(${p}::timestamp AT TIME ZONE ${zone})`);
+      if (q.from) where.push(`l.${cfg.timeColumn} >= ${dayStart(`$${params.push(q.from)}::date`)}`);
+      if (q.to) where.push(`l.${cfg.timeColumn} < ${dayStart(`($${params.push(q.to)}::date + 1)`)}`);
       const whereSql = where.join(' AND ');
       const dir = q.sort === 'asc' ? 'ASC' : 'DESC';
       const [{ total }] = (await ctx.ds.query(`SELECT count(*)::int AS total FROM ${cfg.table} l WHERE ${whereSql}`, params)) as [{ total: number }];
@@ -273,7 +294,7 @@ export function logsService(ctx: AppContext) {
       if (out._created !== null) return { row: present(out), created: out._created };
       if ((input.plotId === null || input.plotId === undefined) && cfg.plotRequired) throw plotRequired();
       if (!out._plotOk) throw plotNotInTrial();
-      if (!out._dateOk) throw dateOutsideTrial(cfg, logDay(cfg, input), out._plantingDate, out._endDate);
+      if (!out._dateOk) throw dateOutsideTrial(cfg, out._day, out._plantingDate, out._endDate);
       if (!out._potOk) throw potNotInPlot();
       // Every check passed and nothing was written: the same key was being written at the same moment
       // (ON CONFLICT DO NOTHING waited for it). Its record is committed now.

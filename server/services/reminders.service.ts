@@ -18,13 +18,13 @@ import {
   forecastRefill,
   frostNights,
   gardenEt0,
-  localSolarDate,
   urgencyOrder,
   DEFAULT_REFILL_THRESHOLD_PCT,
   type FrostNight,
   type RefillForecast,
 } from '@shared/agronomy/refill-forecast';
 import { wettedAreaM2 } from '@shared/agronomy/olla-layout';
+import { dayInTimeZone } from '@shared/time-zone';
 import type { WeatherDay } from '@shared/agronomy/et0';
 import {
   notificationKindSchema,
@@ -178,6 +178,7 @@ interface PotRow {
   garden_name: string;
   latitude_deg: number;
   longitude_deg: number;
+  time_zone: string;
   elevation_m: number;
   coastal: boolean;
   threshold_pct: number;
@@ -196,11 +197,11 @@ function potsSql(where: string): string {
     SELECT o.id AS pot_id, o.label AS pot_label, o.capacity_l, o.widest_diameter_cm,
            p.id AS plot_id, p.label AS plot_label,
            t.id AS trial_id, t.title AS trial_title, t.crop, t.kc_overrides, to_char(t.planting_date, 'YYYY-MM-DD') AS planting_date, t.owner_id,
-           g.id AS garden_id, g.name AS garden_name, g.latitude_deg, g.longitude_deg, g.elevation_m, g.coastal,
+           g.id AS garden_id, g.name AS garden_name, g.latitude_deg, g.longitude_deg, g.elevation_m, g.coastal, g.time_zone,
            COALESCE(np.refill_threshold_pct, ${DEFAULT_REFILL_THRESHOLD_PCT}) AS threshold_pct,
            last.volume_l AS last_refill_l, last.occurred_at AS last_refill_at,
            (SELECT count(*)::int FROM water_events w WHERE w.pot_id = o.id AND w.kind = 'olla_refill' AND w.occurred_at <= $1) AS refill_count,
-           (SELECT s.litres_lost * 24 / s.hours FROM seep_tests s WHERE s.pot_id = o.id AND s.tested_on <= ($1::timestamptz AT TIME ZONE 'UTC')::date
+           (SELECT s.litres_lost * 24 / s.hours FROM seep_tests s WHERE s.pot_id = o.id AND s.tested_on <= ($1::timestamptz AT TIME ZONE g.time_zone)::date
              ORDER BY s.tested_on DESC, s.created_at DESC LIMIT 1) AS seep_l_per_day
       FROM pots o
       JOIN plots p ON p.id = o.plot_id
@@ -220,9 +221,10 @@ function potsSql(where: string): string {
 type Et0 = ReturnType<typeof gardenEt0>;
 
 /** Observed weather of the gardens around `now`, for each garden's ET0 of the last week. */
-async function gardenEt0s(ds: DataSource, gardens: { id: string; latitudeDeg: number; longitudeDeg: number; elevationM: number; coastal: boolean }[], now: Date): Promise<Map<string, { et0: Et0; today: string }>> {
+async function gardenEt0s(ds: DataSource, gardens: { id: string; latitudeDeg: number; timeZone: string; elevationM: number; coastal: boolean }[], now: Date): Promise<Map<string, { et0: Et0; today: string }>> {
   const out = new Map<string, { et0: Et0; today: string }>();
   if (!gardens.length) return out;
+  // A garden's today is within a day of the UTC date: fetch a window wide enough for every zone.
   const utcToday = now.toISOString().slice(0, 10);
   const rows = (await ds.query(
     `SELECT garden_id AS "gardenId", to_char(day, 'YYYY-MM-DD') AS date, t_min_c AS "tMinC", t_max_c AS "tMaxC", rh_min_pct AS "rhMinPct", rh_max_pct AS "rhMaxPct",
@@ -231,7 +233,7 @@ async function gardenEt0s(ds: DataSource, gardens: { id: string; latitudeDeg: nu
     [gardens.map((g) => g.id), addDays(utcToday, -8), addDays(utcToday, 1)],
   )) as ({ gardenId: string; date: string; tMinC: number; tMaxC: number } & Record<string, number | null | string>)[];
   for (const g of gardens) {
-    const today = localSolarDate(now, g.longitudeDeg);
+    const today = dayInTimeZone(now, g.timeZone);
     const days: (WeatherDay & { date: string })[] = rows
       .filter((r) => r.gardenId === g.id)
       .map((r) => ({
@@ -253,7 +255,7 @@ async function gardenEt0s(ds: DataSource, gardens: { id: string; latitudeDeg: nu
 export interface PotOutlook {
   row: PotRow;
   forecast: RefillForecast;
-  /** The garden's date now (mean solar time from its longitude). */
+  /** The garden's date now (its time zone). */
   today: string;
   et0: Et0;
   note: string | null;
@@ -268,7 +270,7 @@ const FORECAST_NOTES: Record<PotForecastNoteCode, string> = {
 
 /** Forecasts for pot rows; `thresholdPct` overrides each row's own (the owner's) threshold. */
 async function outlooks(ds: DataSource, rows: PotRow[], now: Date, thresholdPct?: number): Promise<PotOutlook[]> {
-  const gardens = [...new Map(rows.map((r) => [r.garden_id, { id: r.garden_id, latitudeDeg: r.latitude_deg, longitudeDeg: r.longitude_deg, elevationM: r.elevation_m, coastal: r.coastal }])).values()];
+  const gardens = [...new Map(rows.map((r) => [r.garden_id, { id: r.garden_id, latitudeDeg: r.latitude_deg, timeZone: r.time_zone, elevationM: r.elevation_m, coastal: r.coastal }])).values()];
   const et0s = await gardenEt0s(ds, gardens, now);
   return rows.map((row) => {
     const { et0, today } = et0s.get(row.garden_id)!;
@@ -288,10 +290,10 @@ async function outlooks(ds: DataSource, rows: PotRow[], now: Date, thresholdPct?
 
 /** The refill forecast of every pot of a trial, most urgent first, at the owner's threshold. */
 export async function trialForecast(ds: DataSource, trialId: string, userId: string, now: Date): Promise<TrialForecast> {
-  const trial = (await ds.query(`SELECT g.id, g.latitude_deg, g.longitude_deg, g.elevation_m, g.coastal FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1`, [trialId])) as {
+  const trial = (await ds.query(`SELECT g.id, g.latitude_deg, g.time_zone, g.elevation_m, g.coastal FROM trials t JOIN gardens g ON g.id = t.garden_id WHERE t.id = $1`, [trialId])) as {
     id: string;
     latitude_deg: number;
-    longitude_deg: number;
+    time_zone: string;
     elevation_m: number;
     coastal: boolean;
   }[];
@@ -302,7 +304,7 @@ export async function trialForecast(ds: DataSource, trialId: string, userId: str
   const list = await outlooks(ds, rows, now, refillThresholdPct);
   const et0 =
     list[0]?.et0 ??
-    (await gardenEt0s(ds, [{ id: garden.id, latitudeDeg: garden.latitude_deg, longitudeDeg: garden.longitude_deg, elevationM: garden.elevation_m, coastal: garden.coastal }], now)).get(garden.id)!.et0;
+    (await gardenEt0s(ds, [{ id: garden.id, latitudeDeg: garden.latitude_deg, timeZone: garden.time_zone, elevationM: garden.elevation_m, coastal: garden.coastal }], now)).get(garden.id)!.et0;
   const pots: PotForecast[] = list
     .sort((a, b) => urgencyOrder(a.forecast, b.forecast))
     .map(({ row, forecast, note, noteCode }) => ({
@@ -367,7 +369,7 @@ export async function dueRefills(ds: DataSource, now: Date, userId?: string): Pr
       levelPct: forecast.levelPct!,
       dry: forecast.dry,
       dryAt: forecast.dryAt,
-      dryOn: forecast.dryAt ? localSolarDate(forecast.dryAt, row.longitude_deg) : null,
+      dryOn: forecast.dryAt ? dayInTimeZone(forecast.dryAt, row.time_zone) : null,
       basis: forecast.basis!,
     }));
 }
@@ -390,7 +392,7 @@ export interface FrostItem {
 export async function frostGardens(ds: DataSource, now: Date, opts: { userId?: string; recipientsOnly: boolean }): Promise<FrostItem[]> {
   const conditions = [opts.recipientsOnly ? recipientSql('frost') : 'true', opts.userId ? 'g.owner_id = $1' : 'true'];
   const gardens = (await ds.query(
-    `SELECT g.id, g.name, g.longitude_deg, g.owner_id,
+    `SELECT g.id, g.name, g.time_zone, g.owner_id,
             (SELECT count(*)::int FROM pots o JOIN plots p ON p.id = o.plot_id JOIN trials t ON t.id = p.trial_id
               WHERE t.garden_id = g.id AND o.condition <> 'retired') AS pots_in_ground
        FROM gardens g
@@ -399,7 +401,7 @@ export async function frostGardens(ds: DataSource, now: Date, opts: { userId?: s
       WHERE ${conditions.join(' AND ')}
       ORDER BY g.name, g.id`,
     opts.userId ? [opts.userId] : [],
-  )) as { id: string; name: string; longitude_deg: number; owner_id: string; pots_in_ground: number }[];
+  )) as { id: string; name: string; time_zone: string; owner_id: string; pots_in_ground: number }[];
   const withPots = gardens.filter((g) => g.pots_in_ground > 0);
   if (!withPots.length) return [];
   const utcToday = now.toISOString().slice(0, 10);
@@ -410,7 +412,7 @@ export async function frostGardens(ds: DataSource, now: Date, opts: { userId?: s
   )) as { gardenId: string; day: string; tMinC: number; forecast: boolean }[];
   const out: FrostItem[] = [];
   for (const g of withPots) {
-    const today = localSolarDate(now, g.longitude_deg);
+    const today = dayInTimeZone(now, g.time_zone);
     const nights = frostNights(
       weather.filter((w) => w.gardenId === g.id),
       today,
@@ -506,12 +508,13 @@ export async function digestCohorts(ctx: Pick<NotificationContext, 'ds' | 'logge
        LEFT JOIN notification_preferences np ON np.user_id = u.id
        JOIN trial_shares s ON s.cohort_id = c.id AND s.withdrawn_at IS NULL
        JOIN trials t ON t.id = s.trial_id
+       JOIN gardens g ON g.id = t.garden_id
        JOIN cohort_memberships m ON m.cohort_id = c.id AND m.user_id = t.owner_id
        LEFT JOIN LATERAL (
          SELECT count(*) FILTER (WHERE l.at > $2) AS entries, max(l.at) AS last_at
            FROM (SELECT occurred_at AS at FROM water_events WHERE trial_id = t.id
                  UNION ALL SELECT taken_at FROM moisture_readings WHERE trial_id = t.id
-                 UNION ALL SELECT (harvested_on + time '12:00') AT TIME ZONE 'UTC' FROM harvests WHERE trial_id = t.id
+                 UNION ALL SELECT (harvested_on + time '12:00') AT TIME ZONE g.time_zone FROM harvests WHERE trial_id = t.id
                  UNION ALL SELECT observed_at FROM observations WHERE trial_id = t.id) l
           WHERE l.at <= $1
        ) logs ON true
@@ -554,7 +557,7 @@ export async function digestCohorts(ctx: Pick<NotificationContext, 'ds' | 'logge
   return list;
 }
 
-/** The Monday (UTC) of the week `now` falls in: one digest per cohort per such week. */
+/** The Monday (UTC) of the week `now` falls in: one digest per cohort per such week (a cohort spans gardens in several zones; its digest week stays UTC). */
 export function weekOf(now: Date): string {
   const day = now.getUTCDay(); // 0 = Sunday
   const monday = new Date(now.getTime() - ((day + 6) % 7) * DAY_MS);

@@ -12,7 +12,7 @@ import { zodIssues } from '../middleware/validate';
 import { diff, mustAudit, writeAudit } from './audit';
 
 const trialSelect = `
-  SELECT t.*, g.name AS garden_name,
+  SELECT t.*, g.name AS garden_name, g.time_zone,
          (SELECT count(*)::int FROM plots p WHERE p.trial_id = t.id) AS plot_count,
          GREATEST(
            (SELECT max(occurred_at) FROM water_events w WHERE w.trial_id = t.id),
@@ -25,6 +25,7 @@ interface TrialRow {
   id: string;
   garden_id: string;
   garden_name: string;
+  time_zone: string;
   owner_id: string;
   title: string;
   crop: Trial['crop'];
@@ -52,6 +53,7 @@ function presentTrial(r: TrialRow, access: 'owner' | 'reader'): Trial {
     gardenId: r.garden_id,
     // Cohort readers never see the garden's own name (it can identify the grower).
     gardenName: access === 'owner' ? r.garden_name : '',
+    timeZone: r.time_zone,
     title: r.title,
     crop: r.crop,
     cropName: r.crop_name,

@@ -5,6 +5,7 @@
  * browser's parsing worker, and its output is validated again on the server.
  */
 import { fromDisplay, type Quantity } from '../units';
+import { instantOfWallClock } from '../time-zone';
 
 export const importKinds = ['water-events', 'moisture-readings', 'harvests', 'weather-days'] as const;
 export type ImportKind = (typeof importKinds)[number];
@@ -171,20 +172,20 @@ export function parseDay(value: string, format: DateFormat): string | null {
 }
 
 /**
- * An instant as ISO 8601 UTC. Times without a zone are local to the garden: `offsetMinutes` is
- * that local time's offset from UTC (e.g. −360 for UTC−6).
+ * An instant as ISO 8601 UTC. Times without a zone are wall-clock times of the garden, read in its
+ * IANA time zone with the offset in force on that day (summer time included); a date alone is the
+ * start of that calendar day in the garden.
  */
-export function parseInstant(value: string, format: DateFormat, offsetMinutes: number): string | null {
+export function parseInstant(value: string, format: DateFormat, timeZone: string): string | null {
   const p = parseDateParts(value, format);
   if (!p) return null;
   if (p.hh > 23 || p.mm > 59 || p.ss > 59) return null;
+  if (!p.zone) return new Date(instantOfWallClock(p, timeZone)).toISOString();
   let ms = Date.UTC(p.y, p.m - 1, p.d, p.hh, p.mm, p.ss);
-  if (p.zone && p.zone !== 'Z') {
+  if (p.zone !== 'Z') {
     const sign = p.zone.startsWith('-') ? -1 : 1;
     const digits = p.zone.replace(/[^0-9]/g, '');
     ms -= sign * (Number(digits.slice(0, 2)) * 60 + Number(digits.slice(2, 4))) * 60_000;
-  } else if (!p.zone) {
-    ms -= offsetMinutes * 60_000;
   }
   return new Date(ms).toISOString();
 }
@@ -230,7 +231,8 @@ export interface ImportOptions {
   /** Unit system per quantity field key. */
   units: Record<string, 'metric' | 'us'>;
   dateFormat: DateFormat;
-  offsetMinutes: number;
+  /** The garden's IANA time zone: times without an offset are its wall-clock times. */
+  timeZone: string;
   headers: string[];
 }
 
@@ -320,7 +322,7 @@ export function normaliseRows(rows: string[][], o: ImportOptions): { records: No
           break;
         }
         case 'datetime': {
-          const d = parseInstant(raw, o.dateFormat, o.offsetMinutes);
+          const d = parseInstant(raw, o.dateFormat, o.timeZone);
           if (!d) fail(`"${raw}" is not a date and time in the chosen format.`, 'notDateTime');
           else rec[f.key] = d;
           break;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { canonicalTimeZone } from '../time-zone';
 import { optionalText, patchSchemaOf } from './common';
 
 /** The 12 USDA soil texture classes (USDA Soil Survey Manual, texture triangle). */
@@ -40,6 +41,24 @@ export function coarsenDegrees(v: number): number {
   return (Math.sign(v) * Math.round(Math.abs(v) * 10)) / 10 || 0;
 }
 
+/**
+ * An IANA time-zone name (America/Denver), spelled as Intl spells it. The server also asks
+ * PostgreSQL (pg_timezone_names) and refuses a name it does not know with the same reason.
+ */
+export const timeZoneSchema = z
+  .string()
+  .trim()
+  .min(1)
+  .max(64)
+  .transform((name, ctx) => {
+    const canonical = canonicalTimeZone(name);
+    if (canonical === null) {
+      ctx.addIssue({ code: 'custom', message: 'Choose a time zone from the list (an IANA name like America/Denver).', params: { reason: 'unknown_time_zone' } });
+      return z.NEVER;
+    }
+    return canonical;
+  });
+
 export const gardenInputSchema = z.object({
   name: z.string().trim().min(1, 'Give the garden a name.').max(100),
   latitudeDeg: z.number().min(-90, 'Latitude is between −90 and 90.').max(90, 'Latitude is between −90 and 90.').transform(coarsenDegrees),
@@ -49,6 +68,8 @@ export const gardenInputSchema = z.object({
   /** Coastal sites use kRs 0.19 in FAO-56's radiation estimate; interior 0.16. */
   coastal: z.boolean().default(false),
   notes: optionalText(4000),
+  /** The garden's calendar: its days (daily sums, weeks, "today") are days in this zone. */
+  timeZone: timeZoneSchema.default('UTC'),
 });
 export const createGardenInputSchema = gardenInputSchema;
 export const updateGardenInputSchema = patchSchemaOf(gardenInputSchema);
@@ -64,6 +85,7 @@ export const gardenSchema = z.object({
   soilTexture: soilTextureSchema,
   coastal: z.boolean(),
   notes: z.string(),
+  timeZone: z.string(),
   trialCount: z.number(),
   createdAt: z.string(),
   updatedAt: z.string(),

@@ -82,6 +82,8 @@ export const trialSchema = z.object({
   id: z.uuid(),
   gardenId: z.uuid(),
   gardenName: z.string(),
+  /** The garden's IANA time zone: the trial's days are days there. */
+  timeZone: z.string(),
   title: z.string(),
   crop: cropSchema,
   cropName: z.string(),

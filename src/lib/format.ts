@@ -26,16 +26,22 @@ export function formatNumber(n: number | null | undefined, digits = 1, minDigits
 
 const DAY: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' };
 
-/** A calendar day ('2026-04-10') stays that day in every time zone; an instant shows in local time. */
-export function formatDate(iso: string): string {
+/**
+ * A calendar day ('2026-04-10') stays that day in every time zone; an instant shows in local time,
+ * or in `timeZone` when given (a garden's records show the garden's clock and day).
+ */
+export function formatDate(iso: string, timeZone?: string): string {
   const d = new Date(iso);
   if (Number.isNaN(d.getTime())) return iso;
-  return /^\d{4}-\d{2}-\d{2}$/.test(iso) ? dateFormat('day-utc', { ...DAY, timeZone: 'UTC' }).format(d) : dateFormat('day', DAY).format(d);
+  if (/^\d{4}-\d{2}-\d{2}$/.test(iso)) return dateFormat('day-utc', { ...DAY, timeZone: 'UTC' }).format(d);
+  return timeZone ? dateFormat(`day|${timeZone}`, { ...DAY, timeZone }).format(d) : dateFormat('day', DAY).format(d);
 }
 
-export function formatDateTime(iso: string): string {
+export function formatDateTime(iso: string, timeZone?: string): string {
   const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : dateFormat('datetime', { ...DAY, hour: '2-digit', minute: '2-digit' }).format(d);
+  if (Number.isNaN(d.getTime())) return iso;
+  const options: Intl.DateTimeFormatOptions = { ...DAY, hour: '2-digit', minute: '2-digit' };
+  return timeZone ? dateFormat(`datetime|${timeZone}`, { ...options, timeZone }).format(d) : dateFormat('datetime', options).format(d);
 }
 
 /** "K7QM4XPA" → "K7QM-4XPA": easier to read aloud and to copy by hand. */

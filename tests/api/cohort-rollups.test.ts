@@ -4,7 +4,7 @@
  * rows (`recomputeCohortResultsFromRawRows`, the queries the route used before the rollups) after
  * every kind of write: log create/edit/delete, the Round, CSV import, plot and trial edits, plot and
  * trial deletion, share withdrawal and re-sharing, exclusions, a write made outside the services,
- * and the calendar moving on. The reference here is the raw-row SQL itself; the published numbers
+ * the calendar moving on, and a garden changing its time zone (weeks are the garden's). The reference here is the raw-row SQL itself; the published numbers
  * that check the pooling end to end are in cohort-results.test.ts.
  *
  * Float sums: PostgreSQL adds double-precision values in whatever order it scans them, in both the
@@ -76,7 +76,7 @@ describe('cohort results from the log rollups', () => {
     const fromRaw = await recomputeCohortResultsFromRawRows(t.ds, {
       cohortId,
       userId: leadId,
-      today: t.clock.now!.toISOString().slice(0, 10),
+      now: t.clock.now!,
       query: cohortResultsQuerySchema.parse(query),
     });
     expect(differences(viaRollups, cohortResultsSchema.parse(JSON.parse(JSON.stringify(fromRaw))))).toEqual([]);
@@ -251,6 +251,51 @@ describe('cohort results from the log rollups', () => {
     await ok(growerA.post(`/api/trials/${a2.trial.id}/shares`, { cohortId }), 201);
     const reshared = await expectRouteMatchesRawRows();
     expect(reshared.trials.map((x) => x.trialId)).toContain(a2.trial.id);
+  });
+
+  it("follows a garden's time-zone change and a trial moved to another garden (weeks are the garden's)", async () => {
+    /** The trial's water per ISO week as the rollups hold it. */
+    const rolledWeeks = async (trialId: string) =>
+      (await t.ds.query(
+        `SELECT to_char(week_start, 'YYYY-MM-DD') AS week, sum(events)::int AS events FROM trial_week_water WHERE trial_id = $1 GROUP BY 1 ORDER BY 1`,
+        [trialId],
+      )) as { week: string; events: number }[];
+    /**
+     * The same from the raw rows by another route: PostgreSQL's date_trunc('week', …) (ISO weeks
+     * start on Monday, PostgreSQL manual, "date_trunc") of the local time in the given zone.
+     */
+    const expectedWeeks = async (trialId: string, zone: string) =>
+      (await t.ds.query(
+        `SELECT to_char(date_trunc('week', occurred_at AT TIME ZONE $2), 'YYYY-MM-DD') AS week, count(*)::int AS events
+           FROM water_events WHERE trial_id = $1 GROUP BY 1 ORDER BY 1`,
+        [trialId, zone],
+      )) as { week: string; events: number }[];
+
+    await expectRouteMatchesRawRows();
+    expect(await rolledWeeks(a2.trial.id)).toEqual(await expectedWeeks(a2.trial.id, 'UTC'));
+    // Pacific/Honolulu is UTC−10 all year (IANA tz database): a 07:00Z Monday refill is Sunday there, the week before.
+    const honolulu = await expectedWeeks(a2.trial.id, 'Pacific/Honolulu');
+    expect(honolulu).not.toEqual(await expectedWeeks(a2.trial.id, 'UTC'));
+    const before = await versions(a2.trial.id);
+    await ok(growerA.patch(`/api/gardens/${a2.garden.id}`, { timeZone: 'Pacific/Honolulu' }));
+    // The garden's update bumped every trial of the garden in the same transaction.
+    expect((await versions(a2.trial.id)).current).toBeGreaterThan(before.current);
+    await expectRouteMatchesRawRows();
+    expect(await rolledWeeks(a2.trial.id)).toEqual(honolulu);
+
+    // A change to another column leaves the rollups current.
+    const settled = await versions(a2.trial.id);
+    await ok(growerA.patch(`/api/gardens/${a2.garden.id}`, { notes: 'by the wash' }));
+    expect((await versions(a2.trial.id)).current).toBe(settled.current);
+
+    // psql: moving a trial to a garden in another zone bumps it too (Asia/Tokyo, UTC+9 all year).
+    const tokyo = (await ok(growerB.post('/api/gardens', { name: 'Roof', latitudeDeg: 35.7, longitudeDeg: 139.7, elevationM: 40, soilTexture: 'loam', timeZone: 'Asia/Tokyo' }), 201))
+      .data as { id: string };
+    const b1Before = await versions(b1.trial.id);
+    await t.ds.query(`UPDATE trials SET garden_id = $1 WHERE id = $2`, [tokyo.id, b1.trial.id]);
+    expect((await versions(b1.trial.id)).current).toBeGreaterThan(b1Before.current);
+    await expectRouteMatchesRawRows();
+    expect(await rolledWeeks(b1.trial.id)).toEqual(await expectedWeeks(b1.trial.id, 'Asia/Tokyo'));
   });
 
   it('follows plot and trial deletion', async () => {

@@ -33,7 +33,7 @@ describe('GET /api/trials/:trialId/export/:table.csv', () => {
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/attachment; filename="seepwise-trial-.*-water-events\.csv"/);
     const parsed = parse(res.text);
-    expect(parsed.meta.fields).toEqual(['trial_id', 'plot', 'pair', 'treatment', 'occurred_at', 'kind', 'volume_l', 'source', 'fertiliser', 'notes']);
+    expect(parsed.meta.fields).toEqual(['trial_id', 'plot', 'pair', 'treatment', 'occurred_at', 'day', 'kind', 'volume_l', 'source', 'fertiliser', 'notes']);
     expect(parsed.data).toHaveLength(6);
     expect(parsed.data[0]!.occurred_at).toBe('2026-06-01T07:30:00Z');
     expect(Number(parsed.data[0]!.volume_l)).toBe(5.5);
@@ -83,7 +83,7 @@ describe('GET /api/cohorts/:cohortId/export/:table.csv', () => {
     const first = await lead.get(`/api/cohorts/${cohort.id}/export/water-events.csv`);
     expect(first.status).toBe(200);
     const rows = parse(first.text);
-    expect(rows.meta.fields).toEqual(['trial_code', 'member', 'plot', 'pair', 'treatment', 'occurred_at', 'kind', 'volume_l', 'source', 'fertiliser']);
+    expect(rows.meta.fields).toEqual(['trial_code', 'member', 'plot', 'pair', 'treatment', 'occurred_at', 'day', 'kind', 'volume_l', 'source', 'fertiliser']);
     expect(rows.data).toHaveLength(1);
     expect(rows.data[0]!.trial_code).toMatch(/^T[0-9A-F]{8}$/);
     expect(rows.data[0]!.member).toMatch(/^Grower /);

@@ -211,7 +211,7 @@ describe('POST /api/trials/:trialId/import', () => {
         mapping: guessMapping(headers!, kind),
         units: {},
         dateFormat: 'iso',
-        offsetMinutes: 0,
+        timeZone: 'UTC',
       });
       expect(errors).toEqual([]);
       const res = await a.post(`/api/trials/${dst.id}/import`, { kind, rows: records });

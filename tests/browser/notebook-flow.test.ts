@@ -1,14 +1,15 @@
 /**
  * A grower creates a garden and a paired trial, lets Seepwise assign treatments at random, walks
  * the Round on seven mornings (the browser clock moved day by day) and finds every refill in the
- * records table and in the results.
+ * records table and in the results. The browser is in Denver (America/Denver, MDT = UTC−6 in June,
+ * IANA tz database): the new garden takes that zone, and the log form's "now" is Denver's clock.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startBrowserEnv, type BrowserEnv } from '../helpers/browser';
 
 let env: BrowserEnv;
 beforeAll(async () => {
-  env = await startBrowserEnv();
+  env = await startBrowserEnv({ timezoneId: 'America/Denver' });
 });
 afterAll(async () => {
   await env?.close();
@@ -32,6 +33,10 @@ describe('the notebook in the browser', () => {
     await page.getByRole('button', { name: 'Create garden' }).click();
     await page.getByRole('heading', { name: 'Patio de atrás' }).waitFor();
     await page.getByText(/35\.1°, -106\.7°/).waitFor();
+    // The garden form defaulted to the browser's zone; the page says whose days these are.
+    await page.getByText('Days in America/Denver').waitFor();
+    const [garden] = await t.ds.query(`SELECT time_zone FROM gardens WHERE name = 'Patio de atrás'`);
+    expect(garden.time_zone).toBe('America/Denver');
 
     await page.getByRole('button', { name: 'New trial' }).click();
     await page.getByLabel('Trial title').fill('Tomates 2026');
@@ -82,7 +87,7 @@ describe('the notebook in the browser', () => {
 
     // Seven mornings: two taps per refill (pot, then Save), the last volume as the default.
     for (let day = 1; day <= 7; day++) {
-      await page.clock.setFixedTime(new Date(`2026-06-0${day}T07:00:00`));
+      await page.clock.setFixedTime(new Date(`2026-06-0${day}T13:00:00Z`)); // 07:00 in Denver
       await page.goto(`${baseUrl}/trials/${trial.id}/round`);
       await page.getByRole('heading', { name: 'Pots (2)' }).waitFor();
       // Each pot's button shows the default volume (the last refill, or a full pot); a tap marks it.
@@ -99,6 +104,8 @@ describe('the notebook in the browser', () => {
     await page.getByRole('tab', { name: 'Records' }).click();
     await page.getByText('Page 1 of 1 · 14 records').waitFor();
     await env.screenshot('records-1280');
+    // The log form's default "when" is now on the garden's clock: 13:00Z is 07:00 in Denver.
+    await expect.poll(() => page.getByLabel('When').inputValue()).toBe('2026-06-07T07:00');
     await page.getByRole('tab', { name: 'Results' }).click();
     // Only the pots were watered in this walk, so every pair differs by the same amount: the honest sentence says so.
     await page.getByText(/In all 2 pairs, the olla plots received exactly/).first().waitFor();

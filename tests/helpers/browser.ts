@@ -52,7 +52,7 @@ export async function openOtherBrowser(opts: { locale?: string; viewport?: { wid
 }
 
 /** A test app on a loopback port and a fresh headless Chromium profile pointed at it. */
-export async function startBrowserEnv(opts: { viewport?: { width: number; height: number } } = {}): Promise<BrowserEnv> {
+export async function startBrowserEnv(opts: { viewport?: { width: number; height: number }; timezoneId?: string } = {}): Promise<BrowserEnv> {
   const t = await startTestApp({ client: builtClient() });
   const server = await listen(t.app);
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'seepwise-chromium-'));
@@ -60,6 +60,7 @@ export async function startBrowserEnv(opts: { viewport?: { width: number; height
     executablePath: CHROMIUM,
     headless: true,
     viewport: opts.viewport ?? { width: 1280, height: 800 },
+    timezoneId: opts.timezoneId,
     args: CHROMIUM_ARGS,
   });
   const page = context.pages()[0] ?? (await context.newPage());

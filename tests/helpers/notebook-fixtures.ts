@@ -1,9 +1,16 @@
 import type { ApiAgent } from './test-app';
 
 /** Creates a garden, an active paired trial with two pairs, and a pot in each olla plot, through the API. */
-export async function makePairedTrial(a: ApiAgent, opts: { plantingDate?: string; title?: string } = {}) {
+export async function makePairedTrial(a: ApiAgent, opts: { plantingDate?: string; title?: string; timeZone?: string } = {}) {
   const garden = (
-    await a.post('/api/gardens', { name: 'Back yard', latitudeDeg: 35.0844, longitudeDeg: -106.6504, elevationM: 1500, soilTexture: 'sandy_loam' })
+    await a.post('/api/gardens', {
+      name: 'Back yard',
+      latitudeDeg: 35.0844,
+      longitudeDeg: -106.6504,
+      elevationM: 1500,
+      soilTexture: 'sandy_loam',
+      ...(opts.timeZone ? { timeZone: opts.timeZone } : {}),
+    })
   ).body.data;
   const trialRes = await a.post(`/api/gardens/${garden.id}/trials`, {
     title: opts.title ?? 'Tomatoes 2026',

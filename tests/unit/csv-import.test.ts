@@ -23,7 +23,7 @@ describe('detectDateFormat', () => {
       ['2027-05-03 07:00', 'A1', 'olla', '2'],
       ['ayer', 'A1', 'olla', '2'],
     ];
-    const r = normaliseRows(rows, { kind: 'water-events', mapping: guessMapping(headers, 'water-events'), units: {}, dateFormat: d.format!, offsetMinutes: 0, headers });
+    const r = normaliseRows(rows, { kind: 'water-events', mapping: guessMapping(headers, 'water-events'), units: {}, dateFormat: d.format!, timeZone: 'UTC', headers });
     expect(r.records).toHaveLength(1);
     expect(r.errors).toEqual([expect.objectContaining({ line: 3, column: 'fecha', code: 'notDateTime', params: { value: 'ayer', field: 'occurredAt' } })]);
   });
@@ -43,12 +43,26 @@ describe('detectDateFormat', () => {
 });
 
 describe('parseInstant', () => {
-  it('reads local times with the garden offset and honours explicit zones', () => {
-    expect(parseInstant('2027-06-01 07:00', 'iso', -360)).toBe('2027-06-01T13:00:00.000Z'); // UTC−6
-    expect(parseInstant('2027-06-01T07:00:00Z', 'iso', -360)).toBe('2027-06-01T07:00:00.000Z');
-    expect(parseInstant('2027-06-01T07:00:00+02:00', 'iso', 0)).toBe('2027-06-01T05:00:00.000Z');
-    expect(parseInstant('01/06/2027 07:00', 'dmy', 0)).toBe('2027-06-01T07:00:00.000Z');
-    expect(parseInstant('2027-06-01 25:00', 'iso', 0)).toBeNull();
+  // Offsets from the IANA tz database (tzdata, as ICU ships it): America/Regina is Central Standard
+  // Time all year (UTC−6, no summer time); America/Denver is MST (UTC−7) in winter and MDT (UTC−6)
+  // from the second Sunday of March to the first Sunday of November (US rule since 2007).
+  it('reads local times in the garden time zone and honours explicit zones', () => {
+    expect(parseInstant('2027-06-01 07:00', 'iso', 'America/Regina')).toBe('2027-06-01T13:00:00.000Z'); // UTC−6
+    expect(parseInstant('2027-06-01T07:00:00Z', 'iso', 'America/Regina')).toBe('2027-06-01T07:00:00.000Z');
+    expect(parseInstant('2027-06-01T07:00:00+02:00', 'iso', 'UTC')).toBe('2027-06-01T05:00:00.000Z');
+    expect(parseInstant('01/06/2027 07:00', 'dmy', 'UTC')).toBe('2027-06-01T07:00:00.000Z');
+    expect(parseInstant('2027-06-01 25:00', 'iso', 'UTC')).toBeNull();
+  });
+
+  it('uses the offset in force on that day (summer time), not one offset for the whole file', () => {
+    expect(parseInstant('2027-01-15 07:00', 'iso', 'America/Denver')).toBe('2027-01-15T14:00:00.000Z'); // MST, UTC−7
+    expect(parseInstant('2027-06-15 07:00', 'iso', 'America/Denver')).toBe('2027-06-15T13:00:00.000Z'); // MDT, UTC−6
+  });
+
+  it('reads a date alone as the start of that calendar day in the garden', () => {
+    // America/Los_Angeles in June: Pacific Daylight Time, UTC−7 (IANA tz database).
+    expect(parseInstant('2027-06-01', 'iso', 'America/Los_Angeles')).toBe('2027-06-01T07:00:00.000Z');
+    expect(parseInstant('01/06/2027', 'dmy', 'Europe/Madrid')).toBe('2027-05-31T22:00:00.000Z'); // CEST, UTC+2
   });
 });
 
@@ -75,7 +89,7 @@ describe('guessMapping and guessUnit', () => {
 
 describe('normaliseRows', () => {
   const headers = ['date', 'plot', 'kind', 'volume', 'fertiliser'];
-  const base = { kind: 'water-events' as const, mapping: guessMapping(headers, 'water-events'), dateFormat: 'iso' as const, offsetMinutes: 0, headers };
+  const base = { kind: 'water-events' as const, mapping: guessMapping(headers, 'water-events'), dateFormat: 'iso' as const, timeZone: 'UTC', headers };
 
   it('converts gallons to litres with the exact US gallon (NIST Handbook 44: 3.785411784 L)', () => {
     const { records, errors } = normaliseRows([['2027-06-01 07:00', 'A1', 'refill', '2', 'yes']], { ...base, units: { volumeL: 'us' } });
@@ -110,7 +124,7 @@ describe('normaliseRows', () => {
   });
 
   it('says which required field has no column', () => {
-    const { errors } = normaliseRows([['x']], { kind: 'water-events', mapping: {}, units: {}, dateFormat: 'iso', offsetMinutes: 0, headers: ['x'] });
+    const { errors } = normaliseRows([['x']], { kind: 'water-events', mapping: {}, units: {}, dateFormat: 'iso', timeZone: 'UTC', headers: ['x'] });
     expect(errors.map((e) => e.reason)).toContain('No column is mapped to "Volume", which is required.');
     expect(errors).toContainEqual(expect.objectContaining({ code: 'missingColumn', params: { field: 'volumeL' } }));
   });

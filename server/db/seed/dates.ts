@@ -4,6 +4,12 @@
  * (an invented town; the offset only places morning and evening walks at believable hours).
  */
 export const LOCAL_UTC_OFFSET_HOURS = -6;
+/**
+ * The gardens' IANA time zone: Saltbush Bend is invented, but its longitude (about 105° W) and its
+ * summer clock (UTC−6) are those of US Mountain Daylight Time, the zone's clock through the whole
+ * season (April to September; summer time runs March to November).
+ */
+export const DEMO_TIME_ZONE = 'America/Denver';
 
 const DAY_MS = 86_400_000;
 

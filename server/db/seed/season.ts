@@ -13,7 +13,7 @@ import type { WaterKind } from '@shared/schemas/logs';
 import { LITRES_PER_US_GALLON } from '@shared/units';
 import { DEMO_PROTOCOL, GROWERS, type GrowerPlan, type SourceRule, type TrialPlan } from './cast';
 import { CLIMATE, forecastDays, gardenWeather, townSeries, type GardenSite, type TownSeries, type WeatherDay } from './climate';
-import { addDays, addMinutes, daysBetween, eachDay, localTime, within } from './dates';
+import { addDays, addMinutes, daysBetween, DEMO_TIME_ZONE, eachDay, localTime, within } from './dates';
 import {
   CROP_PROFILES,
   FULL_PICKING_DAYS,
@@ -123,6 +123,7 @@ class GardenSeason {
       soil_texture: g.soil,
       coastal: false,
       notes: g.notes,
+      time_zone: DEMO_TIME_ZONE,
       created_at: createdAt,
       updated_at: createdAt,
     });

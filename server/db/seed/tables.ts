@@ -16,6 +16,7 @@ export const SEASON_TABLES = {
     soil_texture: 'text',
     coastal: 'bool',
     notes: 'text',
+    time_zone: 'text',
     created_at: 'timestamptz',
     updated_at: 'timestamptz',
   },

@@ -42,6 +42,7 @@ export function GardenPage() {
             {formatNumber(g.latitudeDeg, 1, 1)}°, {formatNumber(g.longitudeDeg, 1, 1)}° · {units.fmt(g.elevationM, 'length', 0)} · {t(($) => $.soil[g.soilTexture])}
             {g.coastal ? ` · ${t(($) => $.page.coastal)}` : ''}
           </p>
+          <p className="text-sm text-ink-muted">{t(($) => $.page.timeZone, { zone: g.timeZone })}</p>
         </div>
         <div className="ml-auto flex gap-2">
           <Button variant="secondary" onClick={() => setEditing((v) => !v)}>
@@ -63,6 +64,7 @@ export function GardenPage() {
         {adding ? (
           <div className="rounded-card border border-sand-200 bg-white p-4">
             <TrialForm
+              timeZone={g.timeZone}
               submitLabel={t(($) => $.page.createTrial)}
               onSubmit={(input) => createTrial.mutateAsync(input).then((created) => navigate(paths.trial(created.id)))}
             />
@@ -70,7 +72,7 @@ export function GardenPage() {
         ) : null}
         {trials.isPending ? <p role="status">{t(($) => $.page.loadingTrials)}</p> : <TrialCards trials={trials.data ?? []} trialPath={paths.trial} roundPath={paths.round} />}
       </section>
-      <WeatherPanel gardenId={g.id} />
+      <WeatherPanel gardenId={g.id} timeZone={g.timeZone} />
       <ConfirmDialog
         open={confirmDelete}
         title={t(($) => $.page.deleteTitle, { name: g.name })}

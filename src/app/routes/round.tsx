@@ -27,7 +27,7 @@ export function RoundPage() {
       <Link className="text-sm text-terracotta-700 underline" to={paths.trial(trialId)}>
         ← {trial.data.title}
       </Link>
-      <RoundScreen trialId={trialId} title={trial.data.title} focusPotId={params.get('pot')} />
+      <RoundScreen trialId={trialId} title={trial.data.title} timeZone={trial.data.timeZone} focusPotId={params.get('pot')} />
     </div>
   );
 }

@@ -121,8 +121,8 @@ export function TrialPage() {
             <ResultsTab trialId={tr.id} treatments={tr.treatments} />
           </div>
         ) : null}
-        {tab === 'records' ? <LogsPanel trialId={tr.id} plots={plots.data ?? []} editable={owner && tr.status !== 'closed'} /> : null}
-        {tab === 'import' && user ? <ImportWizard trialId={tr.id} userId={user.id} /> : null}
+        {tab === 'records' ? <LogsPanel trialId={tr.id} timeZone={tr.timeZone} plots={plots.data ?? []} editable={owner && tr.status !== 'closed'} /> : null}
+        {tab === 'import' && user ? <ImportWizard trialId={tr.id} userId={user.id} timeZone={tr.timeZone} /> : null}
         {tab === 'records' ? <ExportLinks trialId={tr.id} /> : null}
         {tab === 'setup' ? (
           <div className="space-y-6">

@@ -11,6 +11,7 @@ import { applyServerErrors } from '@/lib/form-errors';
 import { decimalOrUndefined } from '@/lib/parse-number';
 import { useUnits } from '@/lib/units';
 import { useGardenMessages } from './schema-messages';
+import { browserTimeZone, TimeZoneOptions } from './time-zone-options';
 
 /** The form holds elevation in the reader's unit; the schema's SI value is built on submit. Decimals may be typed with a comma. */
 const makeFormSchema = (required: string, notNumber: string) =>
@@ -31,7 +32,7 @@ export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden;
     resolver: zodResolver(formSchema),
     defaultValues: garden
       ? { ...garden, elevationM: Math.round(units.show(garden.elevationM, 'length')) }
-      : { name: '', soilTexture: 'sandy_loam', coastal: false, notes: '' },
+      : { name: '', soilTexture: 'sandy_loam', coastal: false, notes: '', timeZone: browserTimeZone() },
   });
   const submit = handleSubmit(async (v) => {
     setFormError(null);
@@ -68,6 +69,9 @@ export function GardenForm({ garden, onSubmit, submitLabel }: { garden?: Garden;
           <span className="text-sm">{t(($) => $.form.coastal)}</span>
         </label>
       </div>
+      <SelectField label={t(($) => $.form.timeZone)} hint={t(($) => $.form.timeZoneHint)} {...register('timeZone')} error={m(e.timeZone?.message)}>
+        <TimeZoneOptions current={garden?.timeZone} />
+      </SelectField>
       <TextareaField label={t(($) => $.form.notes)} {...register('notes')} error={m(e.notes?.message)} />
       <Button type="submit" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? t(($) => $.form.saving) : submitLabel}

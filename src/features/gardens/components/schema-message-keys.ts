@@ -11,4 +11,5 @@ export const schemaMessageKeys: Readonly<Record<string, Key>> = {
   'Elevation above 5000 m is not plausible for a garden.': 'elevationHigh',
   'Minimum humidity is above the maximum.': 'humidity',
   'The minimum temperature is above the maximum.': 'temperature',
+  'Choose a time zone from the list (an IANA name like America/Denver).': 'timeZone',
 };

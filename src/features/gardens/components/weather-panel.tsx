@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form';
 import { useTranslation } from 'react-i18next';
 import { z } from 'zod';
 import { weatherDayInputSchema } from '@shared/schemas/logs';
+import { dayInTimeZone } from '@shared/time-zone';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField } from '@/components/ui/field';
@@ -35,7 +36,7 @@ const makeFormSchema = (m: { pickDay: string; enterMin: string; enterMax: string
 type FormValues = z.input<ReturnType<typeof makeFormSchema>>;
 
 /** Weather days of a garden: what ET0 is computed from, and where frost shows up. */
-export function WeatherPanel({ gardenId, from, to }: { gardenId: string; from?: string; to?: string }) {
+export function WeatherPanel({ gardenId, timeZone, from, to }: { gardenId: string; timeZone: string; from?: string; to?: string }) {
   const units = useUnits();
   const { t } = useTranslation('gardens');
   const { t: tc } = useTranslation('common');
@@ -56,7 +57,7 @@ export function WeatherPanel({ gardenId, from, to }: { gardenId: string; from?: 
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, reset, formState } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
-    defaultValues: { day: new Date().toISOString().slice(0, 10), forecast: false },
+    defaultValues: { day: dayInTimeZone(new Date(), timeZone), forecast: false },
   });
   const submit = handleSubmit(async (v) => {
     setFormError(null);

@@ -179,7 +179,7 @@ function ErrorList({ errors, total }: { errors: RowError[]; total: number }) {
  * the date format → preview with every row problem → send (progress) → one transaction on the
  * server. Nothing is written until the whole file is valid.
  */
-export function ImportWizard({ trialId, userId }: { trialId: string; userId: string }) {
+export function ImportWizard({ trialId, userId, timeZone }: { trialId: string; userId: string; timeZone: string }) {
   const { t } = useTranslation('import');
   // The preview and the problem list word values and schema messages from `logs`.
   const { t: tl } = useTranslation('logs');
@@ -207,8 +207,8 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
 
   const normalised = useMemo(() => {
     if (!parsed || !dateFormat) return null;
-    return normaliseRows(parsed.rows, { kind, mapping, units, dateFormat, offsetMinutes: -new Date().getTimezoneOffset(), headers: parsed.headers });
-  }, [parsed, kind, mapping, units, dateFormat]);
+    return normaliseRows(parsed.rows, { kind, mapping, units, dateFormat, timeZone, headers: parsed.headers });
+  }, [parsed, kind, mapping, units, dateFormat, timeZone]);
 
   const reset = () => {
     setParsed(null);
@@ -386,6 +386,7 @@ export function ImportWizard({ trialId, userId }: { trialId: string; userId: str
               </SelectField>
             )
           ) : null}
+          {detection && detection.candidates.length > 0 && dateField.type === 'datetime' ? <p className="text-sm text-ink-muted">{t(($) => $.gardenClock, { zone: timeZone })}</p> : null}
           {normalised ? (
             <>
               {normalised.errors.length ? (

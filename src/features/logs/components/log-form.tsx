@@ -2,6 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { useTranslation } from 'react-i18next';
 import { moistureRanges, type LogKind, type MoistureMethod, type WaterKind, type WaterSource } from '@shared/schemas/logs';
 import type { Plot } from '@shared/schemas/plots';
+import { dayInTimeZone, instantOfWallClockInput, wallClockInput } from '@shared/time-zone';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { CautionNote } from '@/components/ui/caution-note';
@@ -14,22 +15,24 @@ import { useUnits } from '@/lib/units';
 import { useCreateLog } from '../api/log-mutations';
 import { useLogMessages } from './schema-messages';
 
-function localNow(): string {
-  const d = new Date();
-  d.setMinutes(d.getMinutes() - d.getTimezoneOffset());
-  return d.toISOString().slice(0, 16);
+/** Now on the garden's clock, as a datetime-local value. */
+function gardenNow(timeZone: string): string {
+  return wallClockInput(new Date(), timeZone);
 }
 
-/** A datetime-local value (the phone's local time) as an ISO instant. */
-function toIso(local: string): string {
-  return new Date(local).toISOString();
+/**
+ * A datetime-local value, read on the garden's clock (the same as the phone's when the grower is in
+ * the garden), as an ISO instant; a malformed value goes as typed and the server says what is wrong.
+ */
+function toIso(local: string, timeZone: string): string {
+  return instantOfWallClockInput(local, timeZone) ?? local;
 }
 
 /**
  * One form for every kind of log. The server validates with the shared schema and answers with
  * field messages, shown beside the field; nothing is written when anything is wrong.
  */
-export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKind; plots: Plot[] }) {
+export function LogForm({ trialId, timeZone, kind, plots }: { trialId: string; timeZone: string; kind: LogKind; plots: Plot[] }) {
   const units = useUnits();
   const { t } = useTranslation('logs');
   const m = useLogMessages();
@@ -60,7 +63,7 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
       case 'water-events':
         body = {
           plotId,
-          occurredAt: toIso(str('when')),
+          occurredAt: toIso(str('when'), timeZone),
           kind: waterKind,
           volumeL: str('volume') === '' ? undefined : units.toSI(num('volume', 'volumeL'), 'volume'),
           source,
@@ -69,7 +72,7 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
         };
         break;
       case 'moisture-readings':
-        body = { plotId, takenAt: toIso(str('when')), method, depthCm: num('depthCm', 'depthCm'), value: numOrNull('value', 'value') };
+        body = { plotId, takenAt: toIso(str('when'), timeZone), method, depthCm: num('depthCm', 'depthCm'), value: numOrNull('value', 'value') };
         break;
       case 'harvests': {
         const m = numOrNull('marketable', 'marketableKg');
@@ -84,7 +87,7 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
         break;
       }
       case 'observations':
-        body = { plotId, observedAt: toIso(str('when')), text: str('text') };
+        body = { plotId, observedAt: toIso(str('when'), timeZone), text: str('text') };
         break;
     }
     setErrors(bad);
@@ -123,9 +126,16 @@ export function LogForm({ trialId, kind, plots }: { trialId: string; kind: LogKi
       ) : null}
       {plotSelect}
       {kind === 'harvests' ? (
-        <InputField label={t(($) => $.form.dayPicked)} type="date" name="day" defaultValue={new Date().toISOString().slice(0, 10)} error={m(errors.harvestedOn)} />
+        <InputField label={t(($) => $.form.dayPicked)} type="date" name="day" defaultValue={dayInTimeZone(new Date(), timeZone)} error={m(errors.harvestedOn)} />
       ) : (
-        <InputField label={t(($) => $.form.when)} type="datetime-local" name="when" defaultValue={localNow()} error={m(errors.occurredAt ?? errors.takenAt ?? errors.observedAt)} />
+        <InputField
+          label={t(($) => $.form.when)}
+          type="datetime-local"
+          name="when"
+          defaultValue={gardenNow(timeZone)}
+          hint={timeZone !== Intl.DateTimeFormat().resolvedOptions().timeZone ? t(($) => $.form.gardenClock, { zone: timeZone }) : undefined}
+          error={m(errors.occurredAt ?? errors.takenAt ?? errors.observedAt)}
+        />
       )}
       {kind === 'water-events' ? (
         <>

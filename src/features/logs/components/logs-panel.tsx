@@ -25,11 +25,12 @@ const methods = ['vwc', 'tensiometer', 'probe_index'] as const;
 const known = <T extends string>(list: readonly T[], v: unknown): T | undefined => list.find((x) => x === v);
 
 /** A stored value as the reader sees it: dates, numbers and the enum values in their language. */
-function cellText(row: LogRow, field: string, t: TFunction<'logs'>): string {
+function cellText(row: LogRow, field: string, t: TFunction<'logs'>, timeZone: string): string {
   const v = row[field];
   if (v === null || v === undefined || v === '') return '—';
   if (typeof v === 'boolean') return v ? t(($) => $.yes) : t(($) => $.no);
-  if (field.endsWith('At')) return formatDateTime(String(v));
+  // Times show on the garden's clock, so the day beside a record is the day it counts on.
+  if (field.endsWith('At')) return formatDateTime(String(v), timeZone);
   if (field === 'harvestedOn') return formatDate(String(v));
   if (typeof v === 'number') return formatNumber(v, 2);
   const kind = field === 'kind' ? known(waterKinds, v) : undefined;
@@ -45,7 +46,7 @@ function cellText(row: LogRow, field: string, t: TFunction<'logs'>): string {
  * The trial's records of one kind: filtered by date range and plot, sorted and paginated on the
  * server; owners add and delete records here (deletes in shared trials are audited).
  */
-export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots: Plot[]; editable: boolean }) {
+export function LogsPanel({ trialId, timeZone, plots, editable }: { trialId: string; timeZone: string; plots: Plot[]; editable: boolean }) {
   const units = useUnits();
   const { t } = useTranslation('logs');
   const { t: tc } = useTranslation('common');
@@ -84,7 +85,7 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
           </button>
         ))}
       </div>
-      {editable ? <LogForm key={kind} trialId={trialId} kind={kind} plots={plots} /> : null}
+      {editable ? <LogForm key={kind} trialId={trialId} timeZone={timeZone} kind={kind} plots={plots} /> : null}
       <div className="flex flex-wrap items-end gap-3">
         <InputField label={t(($) => $.panel.from)} type="date" value={from} onChange={(e) => (setFrom(e.target.value), setPage(1))} />
         <InputField label={t(($) => $.panel.to)} type="date" value={to} onChange={(e) => (setTo(e.target.value), setPage(1))} />
@@ -136,7 +137,7 @@ export function LogsPanel({ trialId, plots, editable }: { trialId: string; plots
                 <tr key={row.id} className="border-t border-sand-100 align-top">
                   {cols.map((c) => (
                     <td key={c.field} className={cn('px-3 py-1.5', c.numeric && 'num')}>
-                      {c.quantity && typeof row[c.field] === 'number' ? formatNumber(units.show(row[c.field] as number, c.quantity), c.digits ?? 1, c.digits ?? 1) : cellText(row, c.field, t)}
+                      {c.quantity && typeof row[c.field] === 'number' ? formatNumber(units.show(row[c.field] as number, c.quantity), c.digits ?? 1, c.digits ?? 1) : cellText(row, c.field, t, timeZone)}
                       {kind === 'observations' && c.field === 'text' ? <ObservationPhotos trialId={trialId} observationId={row.id} editable={editable} /> : null}
                     </td>
                   ))}

@@ -2,6 +2,7 @@ import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { TFunction } from 'i18next';
 import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
+import { dayInTimeZone } from '@shared/time-zone';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { formatNumber } from '@/lib/format';
@@ -25,8 +26,9 @@ function newKey(): string {
 }
 
 /** The taps of a walk as one Round request; every entry gets its idempotency key here, once. */
-function toInput(entries: Entry[], now: string): RoundInput {
-  const today = now.slice(0, 10);
+function toInput(entries: Entry[], now: string, timeZone: string): RoundInput {
+  // A harvest without a day is the garden's today (its time zone), not the UTC date.
+  const today = dayInTimeZone(now, timeZone);
   return {
     entries: entries.map((en): RoundInput['entries'][number] => {
       switch (en.kind) {
@@ -80,7 +82,7 @@ function estimatedLevel(p: RoundPot): number | null {
  * The Round: the phone screen for the daily walk. Every pot and surface plot of the trial in one
  * list; one tap marks a refill at the last volume (or a full pot), a second tap saves the walk.
  */
-export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; title: string; focusPotId?: string | null }) {
+export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId: string; title: string; timeZone: string; focusPotId?: string | null }) {
   const units = useUnits();
   const { t } = useTranslation('round');
   const records = (n: number) => t(($) => $.records, { count: n });
@@ -137,7 +139,7 @@ export function RoundScreen({ trialId, title, focusPotId }: { trialId: string; t
   const count = Object.keys(entries).length;
   // The walk goes to the queue at once: sent now with a connection, kept on the phone without one.
   const submit = () => {
-    const input = toInput(Object.values(entries), new Date().toISOString());
+    const input = toInput(Object.values(entries), new Date().toISOString(), timeZone);
     setRefusal(null);
     setEntries({});
     sending.clearRefused();

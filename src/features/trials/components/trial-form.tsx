@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form';
 import { useTranslation } from 'react-i18next';
 import type { z } from 'zod';
 import { createTrialInputSchema, cropIds, type CreateTrialInput, type Trial } from '@shared/schemas/trials';
+import { dayInTimeZone } from '@shared/time-zone';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { InputField, SelectField, TextareaField } from '@/components/ui/field';
@@ -13,7 +14,7 @@ import { useTrialMessages } from './schema-messages';
 type FormValues = z.input<typeof createTrialInputSchema>;
 
 /** Trial setup: crop, dates and the question. Paired olla-versus-surface is the default design. */
-export function TrialForm({ trial, onSubmit, submitLabel }: { trial?: Trial; onSubmit: (input: CreateTrialInput) => Promise<unknown>; submitLabel: string }) {
+export function TrialForm({ trial, timeZone, onSubmit, submitLabel }: { trial?: Trial; timeZone?: string; onSubmit: (input: CreateTrialInput) => Promise<unknown>; submitLabel: string }) {
   const { t } = useTranslation('trials');
   const m = useTrialMessages();
   const [formError, setFormError] = useState<string | null>(null);
@@ -21,7 +22,7 @@ export function TrialForm({ trial, onSubmit, submitLabel }: { trial?: Trial; onS
     resolver: zodResolver(createTrialInputSchema),
     defaultValues: trial
       ? { ...trial }
-      : { crop: 'tomato', design: 'paired', treatments: ['olla', 'surface'], plantingDate: new Date().toISOString().slice(0, 10), endDate: null },
+      : { crop: 'tomato', design: 'paired', treatments: ['olla', 'surface'], plantingDate: dayInTimeZone(new Date(), timeZone ?? 'UTC'), endDate: null },
   });
   const crop = watch('crop');
   const submit = handleSubmit(async (v) => {
