@@ -134,17 +134,17 @@ describe('a log write', () => {
       reason: 'pot_not_in_plot',
       details: [{ path: 'potId', message: 'That pot does not sit in this plot.', reason: 'pot_not_in_plot' }],
     });
-    // Planted 2026-05-01, still running. The clock says 2026-09-30 12:00 UTC; the last day allowed is the day 36 hours on
-    // (2026-10-02), so a time zone ahead of UTC can log its today.
+    // Planted 2026-05-01, still running, in a garden on UTC (the default zone). The clock says 2026-09-30 12:00 UTC; the
+    // last day allowed is the garden's tomorrow (2026-10-01; time-zones.test.ts checks other zones).
     expect(await refusal('water-events', { ...base, occurredAt: '2026-04-30T23:59:00Z' })).toEqual({
       reason: 'date_outside_trial',
       details: [{ path: 'occurredAt', message: '2026-04-30 is outside this trial (planted 2026-05-01, still running); future dates are refused too.', reason: 'date_outside_trial' }],
     });
-    expect((await refusal('harvests', { plotId: olla[0]!.id, harvestedOn: '2026-10-03', freshKg: 1 })).reason).toBe('date_outside_trial');
+    expect((await refusal('harvests', { plotId: olla[0]!.id, harvestedOn: '2026-10-02', freshKg: 1 })).reason).toBe('date_outside_trial');
     // Year 0 passes the ISO format check; it is outside the trial like any other day (a 400, not a database error).
     expect((await refusal('water-events', { ...base, occurredAt: '0000-06-01T07:00:00Z' })).reason).toBe('date_outside_trial');
     expect((await refusal('harvests', { plotId: olla[0]!.id, harvestedOn: '0000-06-01', freshKg: 1 })).reason).toBe('date_outside_trial');
-    expect((await a.post(`/api/trials/${trial.id}/harvests`, { plotId: olla[0]!.id, harvestedOn: '2026-10-02', freshKg: 1 })).status).toBe(201);
+    expect((await a.post(`/api/trials/${trial.id}/harvests`, { plotId: olla[0]!.id, harvestedOn: '2026-10-01', freshKg: 1 })).status).toBe(201);
     // An end date moves the last allowed day.
     expect((await a.patch(`/api/trials/${trial.id}`, { endDate: '2026-08-31' })).status).toBe(200);
     expect((await refusal('moisture-readings', { plotId: olla[0]!.id, takenAt: '2026-09-01T06:00:00Z', method: 'vwc', depthCm: 10, value: 20 })).details[0].message).toBe(
