@@ -358,6 +358,10 @@ export async function runBench(options: Partial<BenchOptions> = {}): Promise<Ben
         await res.arrayBuffer();
         if (res.status >= 300) throw new Error(`round-trip probe: ${res.status}`);
       };
+      // One request each first: a session's first request also rolls its stored expiry (one UPDATE, then at
+      // most once per 5 minutes, server/auth/session.ts), which is not a cost of every request.
+      await drain(grower.get('/api/auth/session'));
+      await drain(lead.get('/api/auth/session'));
       roundTrips = {
         analysis: want('analysis') ? { route: await recordQueries(() => drain(grower.get(`/api/trials/${ids.featuredTrialId}/analysis`))), bare: 5 } : notSelected,
         cohort: cohortQueries ? { route: await recordQueries(() => drain(lead.get(`/api/cohorts/${ids.bigCohortId}/results`))), bare: cohortQueries.stale ? 5 : 4 } : want('cohort') ? { skipped: 'no cohort results route' } : notSelected,

@@ -104,6 +104,17 @@ export function tableRows(r: BenchResults): TableRow[] {
       status: status(e.ratio >= 0.5),
       ratio: `${r3(e.ratio)} (COPY ${n(e.copyRowsPerSecond)} rows/s)`,
     });
+    if (e.inProcessSeconds) {
+      rows.push({
+        id: label === 'full' ? '3a′' : '3c′',
+        figure: `3. The same export read in the benchmark process with fetch (the method before session 4; ${label} size)`,
+        value: `${n(Math.round(e.rows / e.inProcessSeconds.median))} rows/s`,
+        spread: `${e.inProcessSeconds.median} s median (${e.inProcessSeconds.min}–${e.inProcessSeconds.max} s), n=${e.reps}`,
+        target: '— (reported)',
+        status: 'info',
+        ratio: `${r3(e.inProcessRatio)} of COPY`,
+      });
+    }
     rows.push({
       id: label === 'full' ? '3b' : '3d',
       figure: `3. Server process peak memory during that export (${label} size)`,
@@ -217,7 +228,7 @@ export function tableRows(r: BenchResults): TableRow[] {
     ratio: '—',
   });
   }
-  const order = ['0', '1a', '1b', '1', '2a', '2b', '2', '2c', '2d', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '6a', '6b', '7a', '7b', '7c', '7d'];
+  const order = ['0', '1a', '1b', '1', '2a', '2b', '2', '2c', '2d', '3a', '3a′', '3b', '3c', '3c′', '3d', '4a', '4b', '5', '6', '6a', '6b', '7a', '7b', '7c', '7d'];
   return rows.sort((a, b) => order.indexOf(a.id) - order.indexOf(b.id));
 }
 
