@@ -75,11 +75,11 @@ describe('npm run bench -- --scale 0.001 --skip-browser', () => {
     const written = JSON.parse(fs.readFileSync(path.join(dir, 'results.json'), 'utf8')) as BenchResults;
     expect(written.table).toEqual(results.table);
     const ids = results.table.map((r) => r.id);
-    for (const id of ['0', '1a', '1b', '2c', '2d', '3a', '3b', '3c', '3d', '4a', '4b', '5', '6', '7a', '7b', '7c', '7d']) expect(ids).toContain(id);
+    for (const id of ['0', '1a', '1b', '2c', '2d', '3a', '3a′', '3b', '3c', '3c′', '3d', '4a', '4b', '5', '6', '7a', '7b', '7c', '7d']) expect(ids).toContain(id);
     expect(ids.some((id) => id.startsWith('2'))).toBe(true);
     for (const row of results.table) expect(['pass', 'miss', 'info', 'skipped']).toContain(row.status);
     const md = fs.readFileSync(path.join(dir, 'RESULTS.md'), 'utf8');
     expect(md).toContain('| # | Figure | Value | Spread | Target | Pass/miss | Ratio |');
-    expect(md.split('\n').filter((l) => /^\| \d[a-d]? \|/.test(l))).toHaveLength(results.table.length);
+    expect(md.split('\n').filter((l) => /^\| \d[a-d]?′? \|/.test(l))).toHaveLength(results.table.length);
   });
 });
