@@ -14,7 +14,7 @@ import { AnalysisInputError } from './analysis/input-error';
 export const UNIT_SYSTEMS = ['metric', 'us'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
-export const QUANTITIES = ['volume', 'mass', 'length-small', 'length', 'area', 'temperature', 'rate'] as const;
+export const QUANTITIES = ['volume', 'mass', 'length-small', 'length', 'area', 'temperature', 'rate', 'speed'] as const;
 export type Quantity = (typeof QUANTITIES)[number];
 
 export const MM_PER_INCH = 25.4;
@@ -22,6 +22,8 @@ export const M_PER_FOOT = 0.3048;
 export const M2_PER_SQUARE_FOOT = 0.09290304;
 export const LITRES_PER_US_GALLON = 3.785411784;
 export const KG_PER_POUND = 0.45359237;
+/** One mile per hour in metres per second: 1,609.344 m ÷ 3,600 s. */
+export const M_PER_S_PER_MPH = 0.44704;
 
 /** SI value of one US unit, for the quantities that convert by a factor. */
 const US_FACTOR: Record<Exclude<Quantity, 'temperature'>, number> = {
@@ -31,6 +33,7 @@ const US_FACTOR: Record<Exclude<Quantity, 'temperature'>, number> = {
   length: M_PER_FOOT,
   area: M2_PER_SQUARE_FOOT,
   rate: LITRES_PER_US_GALLON,
+  speed: M_PER_S_PER_MPH,
 };
 
 export const UNIT_LABELS: Record<Quantity, Record<UnitSystem, string>> = {
@@ -41,6 +44,7 @@ export const UNIT_LABELS: Record<Quantity, Record<UnitSystem, string>> = {
   area: { metric: 'm²', us: 'ft²' },
   temperature: { metric: '°C', us: '°F' },
   rate: { metric: 'L/day', us: 'gal/day' },
+  speed: { metric: 'm/s', us: 'mph' },
 };
 
 /** Unit symbols that are words in part ("L/day"): their Spanish form. Every other symbol is the same in both languages. */

@@ -27,6 +27,7 @@ describe('exact definitions', () => {
     ['length', 0.3048], // foot = 0.3048 m (NIST Handbook 44 App. C)
     ['area', 0.09290304], // square foot = 0.09290304 m² (NIST Handbook 44 App. C)
     ['rate', 3.785411784], // gal/day = 3.785411784 L/day (from the gallon)
+    ['speed', 0.44704], // mile per hour = 0.44704 m/s (NIST SP 811 App. B: mile = 1,609.344 m, exact)
   ] as const)('1 US unit of %s is exactly %s SI units', (quantity, si) => {
     expect(fromDisplay(1, quantity, 'us')).toBe(si);
   });

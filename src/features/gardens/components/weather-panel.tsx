@@ -70,7 +70,7 @@ export function WeatherPanel({ gardenId, timeZone, from, to }: { gardenId: strin
         rainMm: v.rainMm === null || v.rainMm === undefined ? 0 : units.toSI(Number(v.rainMm), 'length-small'),
         rhMinPct: v.rhMinPct ?? null,
         rhMaxPct: v.rhMaxPct ?? null,
-        windSpeedMs: v.windSpeedMs ?? null,
+        windSpeedMs: v.windSpeedMs === null || v.windSpeedMs === undefined ? null : units.toSI(Number(v.windSpeedMs), 'speed'),
         sunshineHours: v.sunshineHours ?? null,
         forecast: v.forecast,
       });
@@ -100,7 +100,7 @@ export function WeatherPanel({ gardenId, timeZone, from, to }: { gardenId: strin
         <InputField label={t(($) => $.weather.rain, { unit: units.label('length-small') })} inputMode="decimal" {...register('rainMm')} error={m(e.rainMm?.message)} />
         <InputField label={t(($) => $.weather.rhMin)} inputMode="decimal" {...register('rhMinPct')} error={m(e.rhMinPct?.message)} />
         <InputField label={t(($) => $.weather.rhMax)} inputMode="decimal" {...register('rhMaxPct')} error={m(e.rhMaxPct?.message)} />
-        <InputField label={t(($) => $.weather.wind)} inputMode="decimal" {...register('windSpeedMs')} error={m(e.windSpeedMs?.message)} />
+        <InputField label={t(($) => $.weather.wind, { unit: units.label('speed') })} inputMode="decimal" {...register('windSpeedMs')} error={m(e.windSpeedMs?.message)} />
         <InputField label={t(($) => $.weather.sunshine)} inputMode="decimal" {...register('sunshineHours')} error={m(e.sunshineHours?.message)} />
         <label className="flex items-center gap-2 text-sm sm:col-span-2">
           <input type="checkbox" className="size-4 accent-terracotta-600" {...register('forecast')} /> {t(($) => $.weather.forecastCheck)}
@@ -139,7 +139,7 @@ export function WeatherPanel({ gardenId, timeZone, from, to }: { gardenId: strin
                   <td className="num px-3 py-1.5">{units.fmt(w.tMaxC, 'temperature')}</td>
                   <td className="num px-3 py-1.5">{units.fmt(w.rainMm ?? 0, 'length-small')}</td>
                   <td className="num px-3 py-1.5">{w.rhMinPct !== null && w.rhMaxPct !== null ? `${formatNumber(w.rhMinPct, 0)}–${formatNumber(w.rhMaxPct, 0)} %` : '—'}</td>
-                  <td className="num px-3 py-1.5">{w.windSpeedMs !== null ? `${formatNumber(w.windSpeedMs, 1)} m/s` : '—'}</td>
+                  <td className="num px-3 py-1.5">{units.fmt(w.windSpeedMs, 'speed', 1)}</td>
                   <td className="num px-3 py-1.5">{w.sunshineHours !== null ? `${formatNumber(w.sunshineHours, 1)} h` : '—'}</td>
                   <td className="px-3 py-1.5 text-right">
                     <Button variant="ghost" size="sm" onClick={() => remove.mutate(w.id)} aria-label={t(($) => $.weather.deleteDay, { day: formatDate(w.day) })}>
