@@ -48,7 +48,8 @@ export function timeZoneNames(): string[] {
   return [...new Set([...listed, 'UTC'])].sort();
 }
 
-interface WallClock {
+/** A local date and time, as read on a clock in some zone (month 1–12). */
+export interface WallClock {
   y: number;
   m: number;
   d: number;

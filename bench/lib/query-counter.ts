@@ -13,13 +13,19 @@ function summary(sql: string) {
   return sql.slice(0, 100) + (writes.length ? ` … [${writes.join(', ')}]` : '');
 }
 
-export async function recordQueries(fn: () => Promise<unknown>): Promise<string[]> {
+/**
+ * The SQL statements the process sends while `fn` runs, in order, whitespace collapsed and passed
+ * through `format`. Every pool in the process (TypeORM's and the session store's) sends through
+ * pg.Client#query, so wrapping it sees each statement, BEGIN and COMMIT included. Run nothing else
+ * against the app meanwhile. (tests/helpers/sql-statements.ts uses it too.)
+ */
+export async function recordStatements(fn: () => Promise<unknown>, format: (sql: string) => string = (sql) => sql): Promise<string[]> {
   const seen: string[] = [];
   const proto = pg.Client.prototype as unknown as { query: (...args: unknown[]) => unknown };
   const original = proto.query;
   proto.query = function (this: unknown, ...args: unknown[]) {
     const q = args[0] as string | { text?: string } | undefined;
-    seen.push(summary((typeof q === 'string' ? q : (q?.text ?? '(stream)')).replace(/\s+/g, ' ').trim()));
+    seen.push(format((typeof q === 'string' ? q : (q?.text ?? '(stream)')).replace(/\s+/g, ' ').trim()));
     return original.apply(this, args);
   };
   try {
@@ -29,3 +35,6 @@ export async function recordQueries(fn: () => Promise<unknown>): Promise<string[
   }
   return seen;
 }
+
+/** The statements one request sends, each as its summary (first 100 characters, plus what a WITH writes). */
+export const recordQueries = (fn: () => Promise<unknown>): Promise<string[]> => recordStatements(fn, summary);

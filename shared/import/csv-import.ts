@@ -5,7 +5,7 @@
  * browser's parsing worker, and its output is validated again on the server.
  */
 import { fromDisplay, type Quantity } from '../units';
-import { instantOfWallClock } from '../time-zone';
+import { instantOfWallClock, type WallClock } from '../time-zone';
 
 export const importKinds = ['water-events', 'moisture-readings', 'harvests', 'weather-days'] as const;
 export type ImportKind = (typeof importKinds)[number];
@@ -134,13 +134,8 @@ export function detectDateFormat(samples: string[]): DateDetection {
   return { format: ambiguous ? null : (candidates[0] ?? null), ambiguous, candidates };
 }
 
-interface DateParts {
-  y: number;
-  m: number;
-  d: number;
-  hh: number;
-  mm: number;
-  ss: number;
+/** A parsed cell: the wall-clock time it names, and its own UTC offset or zone letter when it has one. */
+interface DateParts extends WallClock {
   zone: string | null;
 }
 
