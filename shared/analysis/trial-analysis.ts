@@ -117,19 +117,28 @@ export interface WeekRow {
   appliedMm: Record<string, number>;
 }
 
-export interface CumulativeSeries {
+/**
+ * Water applied to one plot, by day, in columns: day i is `firstDay` plus `dayOffsets[i]` calendar
+ * days, and `litres[i]` is what the plot received that day (the database's daily sum, unrounded).
+ * Days without water are absent. Running totals are the reader's: `cumulativePoints`.
+ * (Columns instead of [day, litres so far] pairs: a 20-plot season went from 90 KB to 25 KB of JSON,
+ * bench/FINDINGS.md "Session 5".)
+ */
+export interface PlotWaterDays {
   plotId: string;
   label: string;
   treatment: string | null;
-  points: [day: string, cumulativeL: number][];
+  firstDay: string;
+  dayOffsets: number[];
+  litres: number[];
 }
 
 export interface TrialAnalysis {
   plots: PlotSummary[];
   treatments: TreatmentSummary[];
   comparisons: Comparison[];
-  /** Water applied so far, one series per plot (by label), each point `[day, litres so far]` in day order. */
-  cumulative: CumulativeSeries[];
+  /** Water applied per plot and day, one series per plot (plots by label), days in order. */
+  waterDays: PlotWaterDays[];
   cropWater: {
     weatherDays: number;
     methods: Record<Et0Method, number>;
@@ -157,6 +166,13 @@ const byLabel = new Intl.Collator('en', { numeric: true }).compare;
 
 function daysBetween(a: string, b: string): number {
   return Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / DAY_MS);
+}
+
+/** One plot's water so far: `[day, litres up to and including that day]`, one point per day with water. */
+export function cumulativePoints(s: PlotWaterDays): [day: string, litresSoFar: number][] {
+  const first = Date.parse(`${s.firstDay}T00:00:00Z`);
+  let total = 0;
+  return s.dayOffsets.map((offset, i) => [new Date(first + offset * DAY_MS).toISOString().slice(0, 10), (total += s.litres[i]!)]);
 }
 
 /** Monday of the ISO week containing the day. */
@@ -297,8 +313,8 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     });
   if (comparisons.every((c) => c.pairs.length === 0) && plots.length) warn('noPair', { control });
 
-  // Cumulative water per plot (daily totals arrive summed; running sums here), one series per
-  // plot: the plot's id, label and treatment once, not on each of its days.
+  // Water per plot and day (daily totals arrive summed by the database), one series per plot: the
+  // plot's id, label and treatment once, its days as offsets from its first day.
   const byPlot = new Map(plots.map((p) => [p.id, p]));
   const dailyByPlot = new Map<string, { day: string; litres: number }[]>();
   for (const r of input.dailyWater) {
@@ -306,15 +322,31 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     if (own) own.push(r);
     else dailyByPlot.set(r.plotId, [r]);
   }
-  const cumulative: CumulativeSeries[] = [...dailyByPlot].map(([plotId, days]) => {
-    let total = 0;
-    const points = days
-      .sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : 0))
-      .map((r): [string, number] => [r.day, (total += r.litres)]);
+  // A season has ~150 days but ~3,000 daily rows: read each day's date once.
+  const dayNumbers = new Map<string, number>();
+  const dayNumber = (day: string) => {
+    let n = dayNumbers.get(day);
+    if (n === undefined) {
+      n = Math.round(Date.parse(`${day}T00:00:00Z`) / DAY_MS);
+      dayNumbers.set(day, n);
+    }
+    return n;
+  };
+  const waterDays: PlotWaterDays[] = [...dailyByPlot].map(([plotId, days]) => {
+    days.sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : 0));
+    const firstDay = days[0]!.day;
+    const first = dayNumber(firstDay);
     const p = byPlot.get(plotId);
-    return { plotId, label: p?.label ?? '', treatment: p?.treatment ?? null, points };
+    return {
+      plotId,
+      label: p?.label ?? '',
+      treatment: p?.treatment ?? null,
+      firstDay,
+      dayOffsets: days.map((r) => dayNumber(r.day) - first),
+      litres: days.map((r) => r.litres),
+    };
   });
-  cumulative.sort((a, b) => byLabel(a.label, b.label) || (a.plotId < b.plotId ? -1 : a.plotId > b.plotId ? 1 : 0));
+  waterDays.sort((a, b) => byLabel(a.label, b.label) || (a.plotId < b.plotId ? -1 : a.plotId > b.plotId ? 1 : 0));
 
   // Crop water need: ET0 per weather day (FAO-56), Kc by stage, ETc; weekly against water applied.
   const kcCrop = cropKc(input.trial.crop, input.trial.kcOverrides);
@@ -404,7 +436,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     plots,
     treatments,
     comparisons,
-    cumulative,
+    waterDays,
     cropWater: {
       weatherDays: weatherDaysInTrial.length,
       methods,

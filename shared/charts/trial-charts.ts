@@ -3,7 +3,7 @@
  * draws them in the browser and the report bundle renders the same specs to SVG and PNG on the
  * server, so a chart in a student's report is the chart they saw.
  */
-import type { TrialAnalysis } from '../analysis/trial-analysis';
+import { cumulativePoints, type TrialAnalysis } from '../analysis/trial-analysis';
 import { enT, type Translate } from '../i18n/translate';
 import { toDisplay, unitLabel, type UnitSystem } from '../units';
 
@@ -80,7 +80,7 @@ export function cumulativeWaterSpec(a: TrialAnalysis, treatments: string[], o: C
   const t = o.t ?? enT;
   return {
     ...base(o, 260),
-    data: { values: a.cumulative.flatMap((s) => s.points.map(([day, litres]) => ({ plot: s.label, treatment: s.treatment ?? 'unassigned', day, value: toDisplay(litres, 'volume', o.units) }))) },
+    data: { values: a.waterDays.flatMap((s) => cumulativePoints(s).map(([day, litres]) => ({ plot: s.label, treatment: s.treatment ?? 'unassigned', day, value: toDisplay(litres, 'volume', o.units) }))) },
     mark: { type: 'line', interpolate: 'step-after' },
     encoding: {
       x: { field: 'day', type: 'temporal', title: t('charts.trial.date'), axis: dayAxis(t) },

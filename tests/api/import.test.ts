@@ -229,8 +229,8 @@ describe('POST /api/trials/:trialId/import', () => {
           : v && typeof v === 'object'
             ? Object.fromEntries(Object.entries(v).map(([k, x]) => [k, round(x)]))
             : v;
-    const strip = (x: { plots: { id: string }[]; cumulative: { plotId: string }[] }) =>
-      round({ ...x, plots: x.plots.map(({ id: _id, ...rest }) => rest), cumulative: x.cumulative.map(({ plotId: _p, ...rest }) => rest) });
+    const strip = (x: { plots: { id: string }[]; waterDays: { plotId: string }[] }) =>
+      round({ ...x, plots: x.plots.map(({ id: _id, ...rest }) => rest), waterDays: x.waterDays.map(({ plotId: _p, ...rest }) => rest) });
     expect(strip(after)).toEqual(strip(before));
     expect(before.comparisons[0].metrics.waterMm.kind).toBe('test');
   });

@@ -10,6 +10,7 @@
  */
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { cumulativePoints, type PlotWaterDays } from '@shared/analysis/trial-analysis';
 import { guessMapping, normaliseRows } from '@shared/import/csv-import';
 import { canonicalTimeZone } from '@shared/time-zone';
 import { makePairedTrial } from '../helpers/notebook-fixtures';
@@ -116,8 +117,8 @@ describe("days are the garden's days", () => {
 
       const analysis = await a.get(`/api/trials/${f.trial.id}/analysis`);
       expect(analysis.status).toBe(200);
-      const series = (analysis.body.data.cumulative as { plotId: string; points: [string, number][] }[]).find((s) => s.plotId === olla.id)!;
-      expect(series.points).toEqual([[day, 6]]);
+      const series = (analysis.body.data.waterDays as PlotWaterDays[]).find((s) => s.plotId === olla.id)!;
+      expect(cumulativePoints(series)).toEqual([[day, 6]]);
 
       const csv = parse((await a.get(`/api/trials/${f.trial.id}/export/water-events.csv`)).text);
       expect(csv.data).toHaveLength(1);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { describeComparison } from '@shared/analysis/narrative';
-import { analyseTrial, weekStart, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
+import { analyseTrial, cumulativePoints, weekStart, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
 import { cumulativeWaterSpec } from '@shared/charts/trial-charts';
 
 // MASS::shoes (Box, Hunter & Hunter 1978, p. 100): material A and B worn by the same boy.
@@ -75,10 +75,16 @@ describe('analyseTrial', () => {
         ],
       }),
     );
-    expect(r.cumulative).toEqual([
-      { plotId: 'o2', label: '2o', treatment: 'olla', points: [['2026-06-01', 0.5], ['2026-06-08', 4.5]] },
-      { plotId: 's2', label: '2s', treatment: 'surface', points: [['2026-06-02', 3.5]] },
-      { plotId: 'o10', label: '10o', treatment: 'olla', points: [['2026-06-01', 1], ['2026-06-03', 3], ['2026-06-08', 7]] },
+    expect(r.waterDays).toEqual([
+      { plotId: 'o2', label: '2o', treatment: 'olla', firstDay: '2026-06-01', dayOffsets: [0, 7], litres: [0.5, 4] },
+      { plotId: 's2', label: '2s', treatment: 'surface', firstDay: '2026-06-02', dayOffsets: [0], litres: [3.5] },
+      { plotId: 'o10', label: '10o', treatment: 'olla', firstDay: '2026-06-01', dayOffsets: [0, 2, 7], litres: [1, 2, 4] },
+    ]);
+    // Running totals, as the chart and any reader rebuild them.
+    expect(r.waterDays.map(cumulativePoints)).toEqual([
+      [['2026-06-01', 0.5], ['2026-06-08', 4.5]],
+      [['2026-06-02', 3.5]],
+      [['2026-06-01', 1], ['2026-06-03', 3], ['2026-06-08', 7]],
     ]);
     // Depth = litres over the treatment's area (1 L on 1 m² is 1 mm, by definition); each treatment has 11 plots of 2 m².
     expect(r.cropWater.weekly.map((w) => [w.weekStart, w.appliedMm.olla, w.appliedMm.surface])).toEqual([
