@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { TFunction } from 'i18next';
 import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
@@ -119,9 +119,12 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
   const surfacePlots = (round.data?.plots ?? []).filter((p) => p.treatment !== 'olla');
 
   // Opened from a reminder's "logged it" link: that pot is already marked; one tap on Save records it.
+  // Once per link: the refetch after the save must not mark it again.
+  const preMarked = useRef<string | null>(null);
   useEffect(() => {
-    const focus = focusPotId ? pots.find((x) => x.pot.id === focusPotId) : undefined;
+    const focus = focusPotId && preMarked.current !== focusPotId ? pots.find((x) => x.pot.id === focusPotId) : undefined;
     if (!focus) return;
+    preMarked.current = focusPotId ?? null;
     const { pot, volume } = focus;
     setEntries((e) => (e[`pot:${pot.id}`] ? e : { ...e, [`pot:${pot.id}`]: { kind: 'refill', potId: pot.id, plotId: pot.plotId, volume } }));
   }, [focusPotId, pots]);
