@@ -116,3 +116,12 @@ export function instantOfWallClockInput(value: string, zone: string): string | n
 export function addDays(day: string, n: number): string {
   return new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 }
+
+/**
+ * Calendar days from `from` to `to` on the garden's calendar ("refilled 2 days ago"): the difference
+ * of their days in `zone`, not of 24-hour periods. Yesterday at 21:00 is 1 day before today at 07:00;
+ * negative when `from` is on a later day than `to`.
+ */
+export function calendarDaysBetween(from: Date | string | number, to: Date | string | number, zone: string): number {
+  return Math.round((Date.parse(`${dayInTimeZone(to, zone)}T00:00:00Z`) - Date.parse(`${dayInTimeZone(from, zone)}T00:00:00Z`)) / 86_400_000);
+}

@@ -17,7 +17,8 @@ const trialSelect = `
          GREATEST(
            (SELECT max(occurred_at) FROM water_events w WHERE w.trial_id = t.id),
            (SELECT max(taken_at) FROM moisture_readings m WHERE m.trial_id = t.id),
-           (SELECT max(harvested_on)::timestamptz FROM harvests h WHERE h.trial_id = t.id)
+           -- A harvest has a day, not an instant: the start of that day on the garden's clock.
+           (SELECT max(harvested_on)::timestamp AT TIME ZONE g.time_zone FROM harvests h WHERE h.trial_id = t.id)
          ) AS last_logged_at
     FROM trials t JOIN gardens g ON g.id = t.garden_id`;
 

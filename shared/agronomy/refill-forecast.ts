@@ -124,6 +124,50 @@ export function forecastRefill(input: RefillForecastInput): RefillForecast {
   };
 }
 
+/** Where a suggested top-up comes from: the seep-test estimate, the last refill's volume, or a full pot. */
+export type TopUpBasis = 'seep-test' | 'last-refill' | 'capacity';
+
+export interface TopUpInput {
+  /** Water the pot holds when full, L. */
+  capacityL: number;
+  /** Latest seep test of the pot, L/day; null before any test. */
+  seepLPerDay: number | null;
+  /** The last olla refill of this pot (instant and litres poured), or null when none was logged. */
+  lastRefill: { at: Date | string; volumeL: number } | null;
+  now: Date | string | number;
+}
+
+export interface TopUpSuggestion {
+  basis: TopUpBasis;
+  /** Litres estimated to be left now (basis 'seep-test' only; otherwise null: unknown). */
+  levelL: number | null;
+  /** Litres suggested for this refill, not rounded (the screen rounds to its own step). */
+  topUpL: number;
+}
+
+/**
+ * What to pour into a pot today. A grower tops an olla up to the neck, so with a seep test and a
+ * logged refill the suggestion is what it takes to fill it: capacity − the level forecastRefill
+ * estimates (the pot full at the last refill, drawn down in a straight line at the seep rate —
+ * a simplification, common practice, no source), clamped to [0, capacity]; a refill logged after
+ * `now` counts as just filled (nothing to add). Without a seep test or a refill the level is
+ * unknown: the last refill's volume (as logged), else a full pot.
+ */
+export function suggestTopUp(input: TopUpInput): TopUpSuggestion {
+  assertPositive('capacityL', input.capacityL);
+  if (input.seepLPerDay !== null && input.lastRefill) {
+    // No `firstFill`: the pot is taken as full after its last refill, as the Round has always shown it.
+    const { levelL } = forecastRefill({ capacityL: input.capacityL, lastRefill: { at: input.lastRefill.at, volumeL: input.lastRefill.volumeL }, seepLPerDay: input.seepLPerDay, now: typeof input.now === 'number' ? new Date(input.now) : input.now });
+    const left = Math.min(input.capacityL, Math.max(0, levelL!));
+    return { basis: 'seep-test', levelL: left, topUpL: Math.min(input.capacityL, Math.max(0, input.capacityL - left)) };
+  }
+  if (input.lastRefill) {
+    assertNonNegative('lastRefill.volumeL', input.lastRefill.volumeL);
+    return { basis: 'last-refill', levelL: null, topUpL: input.lastRefill.volumeL };
+  }
+  return { basis: 'capacity', levelL: null, topUpL: input.capacityL };
+}
+
 /** Crop coefficients with a trial's Kc overrides applied; null for crops without FAO-56 values. */
 export function cropWithOverrides(crop: string, overrides: { ini?: number; mid?: number; end?: number } = {}): CropCoefficients | null {
   const base = CROP_COEFFICIENTS[crop as CropId];

@@ -456,3 +456,24 @@ describe('partial updates (PATCH) change only the fields they name', () => {
     expect(g.body.data).toMatchObject({ name: 'Front yard', notes: 'Windy', coastal: true });
   });
 });
+
+describe("a trial's last log", () => {
+  it("is on the garden's calendar: a harvest day starts at the garden's midnight, so it outranks a refill the evening before", async () => {
+    const a = await grower();
+    // America/Denver is UTC−6 in June (MDT, IANA tz database): midnight on 5 June is 06:00Z.
+    const garden = (await a.post('/api/gardens', { name: 'Acequia plot', latitudeDeg: 39.7, longitudeDeg: -105, elevationM: 1600, soilTexture: 'loam', timeZone: 'America/Denver' })).body.data;
+    const trial = (await a.post(`/api/gardens/${garden.id}/trials`, { title: 'Beans', crop: 'green-beans', plantingDate: '2026-05-01' })).body.data;
+    expect(trial.id).toBeTruthy();
+    const plot = (await a.post(`/api/trials/${trial.id}/plots`, { label: 'A1', blockKey: 'A', areaM2: 2, treatment: 'surface' })).body.data;
+    expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'active' })).status).toBe(200);
+    expect((await a.post(`/api/trials/${trial.id}/harvests`, { plotId: plot.id, harvestedOn: '2026-06-05', freshKg: 1.2 })).status).toBe(201);
+    expect((await a.get(`/api/trials/${trial.id}`)).body.data.lastLoggedAt).toBe('2026-06-05T06:00:00.000Z');
+    // 05:00Z on 5 June is 23:00 on 4 June in Denver: the day before the pick, so the pick stays the last log.
+    expect((await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plot.id, occurredAt: '2026-06-05T05:00:00Z', kind: 'surface', volumeL: 10 })).status).toBe(201);
+    expect((await a.get(`/api/trials/${trial.id}`)).body.data.lastLoggedAt).toBe('2026-06-05T06:00:00.000Z');
+    // A watering later on 5 June (10:00 in Denver) is later than the pick's day start.
+    expect((await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plot.id, occurredAt: '2026-06-05T16:00:00Z', kind: 'surface', volumeL: 10 })).status).toBe(201);
+    const listed = (await a.get(`/api/trials?gardenId=${garden.id}`)).body.data as { id: string; lastLoggedAt: string }[];
+    expect(listed.find((x) => x.id === trial.id)!.lastLoggedAt).toBe('2026-06-05T16:00:00.000Z');
+  });
+});

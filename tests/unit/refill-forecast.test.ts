@@ -14,6 +14,7 @@ import {
   frostNights,
   gardenEt0,
   localSolarDate,
+  suggestTopUp,
   urgencyOrder,
 } from '@shared/agronomy/refill-forecast';
 
@@ -201,5 +202,51 @@ describe('dates and order', () => {
       { id: 'sooner', dryAt: '2026-06-03T00:00:00Z', levelPct: 30 },
     ];
     expect([...pots].sort(urgencyOrder).map((p) => p.id)).toEqual(['sooner', 'later', 'never', 'unknown']);
+  });
+});
+
+// The top-up suggestion is the same straight-line model (the pot full after its last refill, losing
+// its seep-test rate every day): linear seepage is a simplification, common practice, no source.
+// Expected values are worked by hand from capacity − rate × days.
+describe('suggestTopUp', () => {
+  const pot = { capacityL: 8, seepLPerDay: 3 * (24 / 12), lastRefill: { at: filled, volumeL: 7 } };
+
+  it('suggests what it takes to fill the pot: 6 L/day for 10 h is 2.5 L gone, so 2.5 L to fill', () => {
+    const s = suggestTopUp({ ...pot, now: after(10 / 24) });
+    expect(s.basis).toBe('seep-test');
+    expect(s.levelL).toBeCloseTo(5.5, 12);
+    expect(s.topUpL).toBeCloseTo(2.5, 12);
+    // Not the 7 L the last refill took: that pot was nearer empty then.
+    expect(s.topUpL).not.toBeCloseTo(pot.lastRefill.volumeL, 6);
+  });
+
+  it('suggests the whole capacity for a pot estimated exactly empty, and never more (clamped)', () => {
+    // 8 L at 6 L/day is empty after 8 / 6 days exactly.
+    const empty = suggestTopUp({ ...pot, now: after(8 / 6) });
+    expect(empty.levelL).toBeCloseTo(0, 12);
+    expect(empty.topUpL).toBeCloseTo(8, 12);
+    // A week later the straight line is far below zero; the pot still only takes its capacity.
+    expect(suggestTopUp({ ...pot, now: after(7) })).toEqual({ basis: 'seep-test', levelL: 0, topUpL: 8 });
+  });
+
+  it('suggests nothing for a pot just filled, or filled "after" now (a phone clock behind the entry)', () => {
+    expect(suggestTopUp({ ...pot, now: filled })).toEqual({ basis: 'seep-test', levelL: 8, topUpL: 0 });
+    expect(suggestTopUp({ ...pot, now: after(-0.5) })).toEqual({ basis: 'seep-test', levelL: 8, topUpL: 0 });
+    // A pot that loses nothing (0 L in its seep test) stays full.
+    expect(suggestTopUp({ ...pot, seepLPerDay: 0, now: after(30) })).toEqual({ basis: 'seep-test', levelL: 8, topUpL: 0 });
+  });
+
+  it('falls back to the last refill without a seep test, and to a full pot without a refill', () => {
+    expect(suggestTopUp({ ...pot, seepLPerDay: null, now: after(3) })).toEqual({ basis: 'last-refill', levelL: null, topUpL: 7 });
+    // A seep test alone says nothing about the level without a refill to start from.
+    expect(suggestTopUp({ ...pot, lastRefill: null, now: after(3) })).toEqual({ basis: 'capacity', levelL: null, topUpL: 8 });
+    expect(suggestTopUp({ ...pot, seepLPerDay: null, lastRefill: null, now: after(3) })).toEqual({ basis: 'capacity', levelL: null, topUpL: 8 });
+    // `now` may be a number of milliseconds, as Date.now() gives it.
+    expect(suggestTopUp({ ...pot, now: after(10 / 24).getTime() }).topUpL).toBeCloseTo(2.5, 12);
+  });
+
+  it('refuses a pot without capacity and a negative seep rate', () => {
+    expect(() => suggestTopUp({ ...pot, capacityL: 0, now: after(1) })).toThrow(AnalysisInputError);
+    expect(() => suggestTopUp({ ...pot, seepLPerDay: -1, now: after(1) })).toThrow(AnalysisInputError);
   });
 });

@@ -11,6 +11,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   addDays,
+  calendarDaysBetween,
   canonicalTimeZone,
   dayInTimeZone,
   instantOfWallClock,
@@ -119,5 +120,24 @@ describe('addDays', () => {
     expect(addDays('2026-12-31', 1)).toBe('2027-01-01');
     expect(addDays('2028-02-28', 1)).toBe('2028-02-29');
     expect(addDays('2026-03-01', -1)).toBe('2026-02-28');
+  });
+});
+
+describe('calendarDaysBetween', () => {
+  it("counts calendar days in the garden's zone, not 24-hour periods", () => {
+    // 03:00Z on 1 June is 21:00 on 31 May at MDT (UTC−6, America/Denver); 13:00Z is 07:00 on 1 June.
+    // Ten hours apart, yet the day before in Denver; the same day in UTC.
+    expect(calendarDaysBetween('2026-06-01T03:00:00Z', '2026-06-01T13:00:00Z', 'America/Denver')).toBe(1);
+    expect(calendarDaysBetween('2026-06-01T03:00:00Z', '2026-06-01T13:00:00Z', 'UTC')).toBe(0);
+    // Two spans of 47 hours each in Denver: 1 June 00:30 MDT (06:30Z) to 2 June 23:30 MDT (05:30Z on 3 June)
+    // is 1 calendar day; 31 May 23:30 MDT (1 June 05:30Z) to 2 June 22:30 MDT (3 June 04:30Z) is 2.
+    expect(calendarDaysBetween('2026-06-01T06:30:00Z', '2026-06-03T05:30:00Z', 'America/Denver')).toBe(1);
+    expect(calendarDaysBetween('2026-06-01T05:30:00Z', '2026-06-03T04:30:00Z', 'America/Denver')).toBe(2);
+  });
+
+  it('is a whole number across a summer-time change (a 23-hour day) and negative for a later day', () => {
+    // US spring-forward on 8 March 2026 (tz database): 7 March 12:00 PST (20:00Z) to 9 March 12:00 PDT (19:00Z) is 2 days.
+    expect(calendarDaysBetween('2026-03-07T20:00:00Z', '2026-03-09T19:00:00Z', 'America/Los_Angeles')).toBe(2);
+    expect(calendarDaysBetween(Date.parse('2026-06-03T12:00:00Z'), new Date('2026-06-01T12:00:00Z'), 'UTC')).toBe(-2);
   });
 });

@@ -1,8 +1,9 @@
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { TFunction } from 'i18next';
 import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
-import { dayInTimeZone } from '@shared/time-zone';
+import { suggestTopUp, type TopUpSuggestion } from '@shared/agronomy/refill-forecast';
+import { calendarDaysBetween, dayInTimeZone } from '@shared/time-zone';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { formatNumber } from '@/lib/format';
@@ -62,20 +63,18 @@ function fromInput(input: RoundInput): Record<string, Entry> {
   return out;
 }
 
-/** Days since an ISO instant, for "last refilled 2 days ago". */
-function daysAgo(iso: string | null, t: TFunction<'round'>): string {
+/** "last refilled 2 days ago": calendar days in the garden's time zone, not 24-hour periods. */
+function daysAgo(iso: string | null, now: number, timeZone: string, t: TFunction<'round'>): string {
   if (!iso) return t(($) => $.never);
-  const d = Math.floor((Date.now() - Date.parse(iso)) / 86_400_000);
+  const d = calendarDaysBetween(iso, now, timeZone);
   return d <= 0 ? t(($) => $.today) : d === 1 ? t(($) => $.yesterday) : t(($) => $.daysAgo, { count: d });
 }
 
 const potConditions = ['sound', 'cracked', 'clogged', 'retired'] as const;
 
-/** Litres left now: capacity minus what the last seep test says it lost since the last refill. */
-function estimatedLevel(p: RoundPot): number | null {
-  if (!p.lastRefillAt || p.seepLPerDay === null) return null;
-  const days = (Date.now() - Date.parse(p.lastRefillAt)) / 86_400_000;
-  return Math.max(0, Math.min(p.capacityL, p.capacityL - p.seepLPerDay * days));
+/** What to pour into a pot now: what it takes to fill it by its seep test, else the last refill, else a full pot. */
+function topUp(p: RoundPot, now: number): TopUpSuggestion {
+  return suggestTopUp({ capacityL: p.capacityL, seepLPerDay: p.seepLPerDay, lastRefill: p.lastRefillAt && p.lastRefillL !== null ? { at: p.lastRefillAt, volumeL: p.lastRefillL } : null, now });
 }
 
 /**
@@ -103,19 +102,32 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
   const sending = useRoundSendState(trialId, onRefused);
   const step = units.system === 'us' ? 0.25 : 0.5;
 
+  // Each pot with what to pour now. A seep-test estimate is rounded to the stepper's step (what
+  // the − and + buttons would make of it, at least one step); a last refill or a full pot is a
+  // real volume and is kept as it is.
   const pots = useMemo(() => {
-    const list = round.data?.pots ?? [];
-    // Emptiest first: the estimate from the last seep test, else the oldest refill.
-    return [...list].sort((a, b) => (estimatedLevel(a) ?? a.capacityL) / a.capacityL - (estimatedLevel(b) ?? b.capacityL) / b.capacityL);
-  }, [round.data]);
+    const now = Date.now();
+    const list = (round.data?.pots ?? []).map((pot) => {
+      const suggestion = topUp(pot, now);
+      const fill = suggestion.basis === 'seep-test' ? Math.round(units.show(suggestion.topUpL, 'volume') / step) * step : null;
+      return { pot, suggestion, fill, volume: fill === null ? suggestion.topUpL : units.toSI(Math.max(step, fill), 'volume') };
+    });
+    // Emptiest first by the seep-test estimate; a pot without one counts as full.
+    const share = (x: (typeof list)[number]) => (x.suggestion.levelL ?? x.pot.capacityL) / x.pot.capacityL;
+    return list.sort((a, b) => share(a) - share(b));
+  }, [round.data, units, step]);
   const surfacePlots = (round.data?.plots ?? []).filter((p) => p.treatment !== 'olla');
 
   // Opened from a reminder's "logged it" link: that pot is already marked; one tap on Save records it.
+  // Once per link: the refetch after the save must not mark it again.
+  const preMarked = useRef<string | null>(null);
   useEffect(() => {
-    const pot = focusPotId ? round.data?.pots.find((p) => p.id === focusPotId) : undefined;
-    if (!pot) return;
-    setEntries((e) => (e[`pot:${pot.id}`] ? e : { ...e, [`pot:${pot.id}`]: { kind: 'refill', potId: pot.id, plotId: pot.plotId, volume: pot.lastRefillL ?? pot.capacityL } }));
-  }, [focusPotId, round.data]);
+    const focus = focusPotId && preMarked.current !== focusPotId ? pots.find((x) => x.pot.id === focusPotId) : undefined;
+    if (!focus) return;
+    preMarked.current = focusPotId ?? null;
+    const { pot, volume } = focus;
+    setEntries((e) => (e[`pot:${pot.id}`] ? e : { ...e, [`pot:${pot.id}`]: { kind: 'refill', potId: pot.id, plotId: pot.plotId, volume } }));
+  }, [focusPotId, pots]);
   const plotLabel = (id: string) => round.data?.plots.find((p) => p.id === id)?.label ?? '';
 
   if (round.isPending) return <p role="status">{t(($) => $.loading)}</p>;
@@ -137,6 +149,7 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
     });
 
   const count = Object.keys(entries).length;
+  const now = Date.now();
   // The walk goes to the queue at once: sent now with a connection, kept on the phone without one.
   const submit = () => {
     const input = toInput(Object.values(entries), new Date().toISOString(), timeZone);
@@ -146,7 +159,7 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
     save.mutate({ trialId, input });
   };
 
-  const row = (key: string, entry: WaterEntry, heading: string, sub: string, level: number | null, capacity: number | null) => {
+  const row = (key: string, entry: WaterEntry, heading: string, sub: string, level: number | null, capacity: number | null, note: string | null = null) => {
     const on = Boolean(entries[key]);
     const current = entries[key];
     const vol = current && (current.kind === 'refill' || current.kind === 'surface') ? current.volume : entry.volume;
@@ -167,6 +180,7 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
                 <span className="text-xs text-ink-muted">{t(($) => $.left, { pct: formatNumber((level / capacity) * 100, 0) })}</span>
               </div>
             ) : null}
+            {note ? <p className="mt-1 text-xs text-ink-muted">{note}</p> : null}
           </div>
           <Button
             size="lg"
@@ -232,14 +246,21 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
         </h2>
         {pots.length === 0 ? <p className="text-ink-muted">{t(($) => $.noPots)}</p> : null}
         <ul className="space-y-2">
-          {pots.map((p) =>
+          {pots.map(({ pot: p, suggestion, fill, volume }) =>
             row(
               `pot:${p.id}`,
-              { kind: 'refill', potId: p.id, plotId: p.plotId, volume: p.lastRefillL ?? p.capacityL },
+              { kind: 'refill', potId: p.id, plotId: p.plotId, volume },
               t(($) => $.potHeading, { pot: p.label, plot: plotLabel(p.plotId) }),
-              `${t(($) => $.potSub, { capacity: units.fmt(p.capacityL, 'volume', 1), ago: daysAgo(p.lastRefillAt, t) })}${p.condition !== 'sound' ? ` · ${conditionText(p.condition)}` : ''}`,
-              estimatedLevel(p),
+              `${t(($) => $.potSub, { capacity: units.fmt(p.capacityL, 'volume', 1), ago: daysAgo(p.lastRefillAt, now, timeZone, t) })}${p.condition !== 'sound' ? ` · ${conditionText(p.condition)}` : ''}`,
+              suggestion.levelL,
               p.capacityL,
+              fill === null
+                ? suggestion.basis === 'last-refill'
+                  ? t(($) => $.suggestion.lastRefill)
+                  : t(($) => $.suggestion.fullPot)
+                : fill === 0
+                  ? t(($) => $.suggestion.stillFull)
+                  : t(($) => $.suggestion.toFill, { volume: `${formatNumber(fill, 2)} ${units.label('volume')}` }),
             ),
           )}
         </ul>
@@ -254,7 +275,7 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
               `plot:${p.id}`,
               { kind: 'surface', plotId: p.id, volume: p.lastSurfaceL ?? 10 },
               t(($) => $.plotHeading, { plot: p.label }),
-              t(($) => $.plotSub, { area: units.fmt(p.areaM2, 'area', 1), ago: daysAgo(p.lastWateredAt, t) }),
+              t(($) => $.plotSub, { area: units.fmt(p.areaM2, 'area', 1), ago: daysAgo(p.lastWateredAt, now, timeZone, t) }),
               null,
               null,
             ),

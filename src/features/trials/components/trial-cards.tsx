@@ -25,7 +25,7 @@ export function TrialCards({ trials, trialPath, roundPath }: { trials: Trial[]; 
             {tr.variety ? ` · ${tr.variety}` : ''} · {t(($) => $.cards.planted, { date: formatDate(tr.plantingDate) })} · {t(($) => $.cards.plots, { count: tr.plotCount })}
             {tr.gardenName ? ` · ${tr.gardenName}` : ''}
           </p>
-          <p className="mt-1 text-sm">{tr.lastLoggedAt ? t(($) => $.cards.lastLogged, { date: formatDate(tr.lastLoggedAt) }) : t(($) => $.cards.nothingLogged)}</p>
+          <p className="mt-1 text-sm">{tr.lastLoggedAt ? t(($) => $.cards.lastLogged, { date: formatDate(tr.lastLoggedAt, tr.timeZone) }) : t(($) => $.cards.nothingLogged)}</p>
           {tr.status === 'active' && tr.access === 'owner' ? (
             <Link to={roundPath(tr.id)} className="mt-3 inline-flex min-h-11 items-center rounded-lg bg-terracotta-600 px-4 font-medium text-white hover:bg-terracotta-700">
               {t(($) => $.cards.startRound)}
