@@ -18,7 +18,7 @@ import { zodIssues } from '../middleware/validate';
 import { diff, mustAudit, writeAudit } from './audit';
 import type { TrialStatus } from '@shared/schemas/trials';
 import type { AccessGate } from '../http/access';
-import { assertTrialWritable, trialClosed } from './trials.service';
+import { TRIAL_WRITE_LOCK, trialClosed } from './trials.service';
 
 type LogInput = WaterEventInput | MoistureReadingInput | HarvestInput | ObservationInput;
 
@@ -181,6 +181,15 @@ interface WriteOutcome {
  * when the trial is audited, and returns the record as the list shows it (plot label, who entered
  * it). A single statement is atomic on its own, so no transaction; the rollup triggers fire in it.
  * No row back: no such trial (or not the user's).
+ *
+ * CTE `c` locks the trial row (TRIAL_WRITE_LOCK, server/services/trials.service.ts) before anything is
+ * inserted, so a close cannot commit between the status check and the insert: a locking clause may
+ * stand inside a WITH query and then locks there (PostgreSQL docs, SELECT, "The Locking Clause": the
+ * clauses "do not apply to WITH queries referenced by the primary query. If you want row locking to
+ * occur within a WITH query, specify a locking clause within the WITH query"). If a close holds the
+ * row, the statement waits, and under READ COMMITTED ("13.2.1 Read Committed Isolation Level") gets
+ * the row as the close committed it, so `c.status` is 'closed' and nothing is written. `OF t`: the
+ * garden and the plot and pot rows are read, not locked.
  */
 function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, userId: string, input: Record<string, unknown>, opts: { ownerOnly: boolean; now: Date }) {
   const params: unknown[] = [trialId, userId];
@@ -210,6 +219,7 @@ function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, user
              ${plotOk} AS plot_ok, ${dateOk} AS date_ok, ${potOk} AS pot_ok
         FROM trials t JOIN gardens g ON g.id = t.garden_id CROSS JOIN LATERAL (SELECT ${day} AS day) d
        WHERE t.id = $1${opts.ownerOnly ? ' AND t.owner_id = $2' : ''}
+         ${TRIAL_WRITE_LOCK} OF t
     ),${key ? `
     prior AS (SELECT * FROM ${cfg.table} WHERE trial_id = $1 AND idempotency_key = ${keyParam}),` : ''}
     ins AS (
@@ -232,6 +242,22 @@ function writeStatement(cfg: LogKindConfig, kind: LogKind, trialId: string, user
         }
       ) r ON true`;
   return { sql, params };
+}
+
+/**
+ * The first statement of an edit or a delete of log `id`: locks its trial's row (TRIAL_WRITE_LOCK) and
+ * refuses a closed trial. The trial row is locked before the log row, in the order every trial write
+ * takes them (log writes, assertTrialWritable, a trial's delete), so an edit and a plot's removal
+ * (which deletes its logs) or a write cannot wait for each other in a cycle. The log's trial is
+ * read without a lock: a log never moves to another trial. A close that holds the trial row makes this
+ * wait; afterwards it reads the status the close committed (READ COMMITTED, see writeStatement).
+ */
+async function lockWritableTrialOf(tx: EntityManager, cfg: LogKindConfig, id: string) {
+  const [t] = (await tx.query(`SELECT t.status FROM trials t WHERE t.id = (SELECT l.trial_id FROM ${cfg.table} l WHERE l.id = $1) ${TRIAL_WRITE_LOCK}`, [id])) as {
+    status: TrialStatus;
+  }[];
+  if (!t) throw AppError.notFound('Record');
+  if (t.status === 'closed') throw trialClosed();
 }
 
 export function logsService(ctx: AppContext) {
@@ -311,11 +337,11 @@ export function logsService(ctx: AppContext) {
     async update(kind: LogKind, id: string, userId: string, patch: Record<string, unknown>) {
       const cfg = logKinds[kind];
       return ctx.ds.transaction(async (tx) => {
+        await lockWritableTrialOf(tx, cfg, id);
         const [before] = (await tx.query(`SELECT l.trial_id AS "trialId", ${selectList(cfg)} ${fromClause(cfg)} WHERE l.id = $1 FOR UPDATE OF l`, [id])) as (LogRow & {
           trialId: string;
         })[];
         if (!before) throw AppError.notFound('Record');
-        await assertTrialWritable(tx, before.trialId);
         const current: Record<string, unknown> = {};
         for (const f of Object.keys(cfg.columns)) current[f] = before[f] instanceof Date ? (before[f] as Date).toISOString() : before[f];
         delete current.idempotencyKey;
@@ -342,9 +368,9 @@ export function logsService(ctx: AppContext) {
     async remove(kind: LogKind, id: string, userId: string) {
       const cfg = logKinds[kind];
       await ctx.ds.transaction(async (tx) => {
+        await lockWritableTrialOf(tx, cfg, id);
         const [before] = (await tx.query(`SELECT l.trial_id AS "trialId", ${selectList(cfg)} ${fromClause(cfg)} WHERE l.id = $1`, [id])) as (LogRow & { trialId: string })[];
         if (!before) throw AppError.notFound('Record');
-        await assertTrialWritable(tx, before.trialId);
         if (await mustAudit(tx, before.trialId)) {
           await writeAudit(tx, { trialId: before.trialId, actorId: userId, action: 'delete', entityType: cfg.entityType, entityId: id, changes: presentLog(before) });
         }

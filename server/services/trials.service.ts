@@ -94,9 +94,36 @@ export function presentPlot(p: PlotEntity, potIds: string[] = []): Plot {
   };
 }
 
-/** Closed trials are read-only until their owner reopens them. */
+/**
+ * The row lock every write to a trial's records takes on the trial row, first, and holds until its
+ * transaction ends; closing (or reopening) a trial takes the same lock (setStatus). PostgreSQL's
+ * row-level lock table (docs, "13.3.2 Row-Level Locks") has FOR NO KEY UPDATE conflict with itself,
+ * FOR SHARE and FOR UPDATE, but not with FOR KEY SHARE (what foreign-key checks take), so:
+ * - a close waits for writes in progress and a write waits for a close in progress; under READ
+ *   COMMITTED the waiting SELECT … FOR NO KEY UPDATE then returns the row as the other transaction
+ *   committed it ("13.2.1 Read Committed Isolation Level": the would-be updater waits, then the
+ *   WHERE clause is re-evaluated on the updated version, and SELECT FOR UPDATE/SHARE lock and return
+ *   that version), so a write sees 'closed' and is refused; nothing lands in a closed trial.
+ * - It is the lock an UPDATE of the trial's non-key columns takes ("13.3.2": FOR NO KEY UPDATE "is
+ *   also acquired by any UPDATE that does not acquire a FOR UPDATE lock"; `status` and `data_version`
+ *   are in no unique index). A log write's rollup trigger (migration CohortLogRollups) updates
+ *   `trials.data_version` in the same transaction, so taking FOR NO KEY UPDATE up front means the
+ *   transaction never upgrades its lock. FOR SHARE would be weaker but deadlocks: two writes to one
+ *   trial both get FOR SHARE, then each one's trigger UPDATE waits for the other's share lock.
+ * - The trial row comes first: a transaction locks it before any log, plot or pot row, so two writers
+ *   (or a writer and a close, which locks nothing else) cannot wait for each other in a cycle.
+ * FOR UPDATE (the close's lock before) would also block foreign-key checks of rows being inserted
+ * for the trial (audit entries, shares), which need not wait. See DEVELOPERS.md "Decisions".
+ */
+export const TRIAL_WRITE_LOCK = 'FOR NO KEY UPDATE';
+
+/**
+ * Closed trials are read-only until their owner reopens them. Locks the trial row (TRIAL_WRITE_LOCK)
+ * until the transaction ends, so the trial cannot be closed before the caller's writes commit: call
+ * it inside the transaction, before the transaction touches any other row.
+ */
 export async function assertTrialWritable(em: EntityManager, trialId: string) {
-  const [row] = (await em.query('SELECT status FROM trials WHERE id = $1', [trialId])) as { status: TrialStatus }[];
+  const [row] = (await em.query(`SELECT status FROM trials WHERE id = $1 ${TRIAL_WRITE_LOCK}`, [trialId])) as { status: TrialStatus }[];
   if (!row) throw AppError.notFound('Trial');
   if (row.status === 'closed') throw trialClosed();
 }
@@ -165,7 +192,10 @@ export function trialsService(ctx: AppContext) {
 
     async setStatus(id: string, actorId: string, status: TrialStatus): Promise<Trial> {
       await ctx.ds.transaction(async (tx) => {
-        const [row] = (await tx.query('SELECT status FROM trials WHERE id = $1 FOR UPDATE', [id])) as { status: TrialStatus }[];
+        // The writers' lock (TRIAL_WRITE_LOCK), the weakest that conflicts with itself: the close waits for
+        // log writes in progress, and writes that come after it wait and then see the new status. The
+        // close locks no other row (its audit entry is a new row), so it is never part of a deadlock.
+        const [row] = (await tx.query(`SELECT status FROM trials WHERE id = $1 ${TRIAL_WRITE_LOCK}`, [id])) as { status: TrialStatus }[];
         if (!row) throw AppError.notFound('Trial');
         if (row.status === status) return;
         if (!allowedTransitions[row.status].includes(status)) {

@@ -255,3 +255,184 @@ describe('a log write', () => {
     }
   });
 });
+
+/**
+ * A trial being closed while one of its logs is written, edited or deleted. Closed trials are
+ * read-only (project rule, server/services/trials.service.ts `assertTrialWritable`); the writes and
+ * the close take the same row lock on the trial (TRIAL_WRITE_LOCK, FOR NO KEY UPDATE), so they run
+ * one after the other, in either order. Lock behaviour is PostgreSQL's: "13.3.2 Row-Level Locks"
+ * (which modes conflict) and "13.2.1 Read Committed Isolation Level" (a waiting locker gets the
+ * committed version of the row). No timing: each test holds a lock open on a connection of its own,
+ * polls pg_stat_activity until the request is seen waiting for a lock (`wait_event_type = 'Lock'`) and
+ * names the blocking backend (pg_blocking_pids), and only then lets go.
+ */
+describe('a close racing a log write', () => {
+  /** A second connection, outside the app's pool, that holds locks across the test's steps. */
+  async function holder() {
+    const c = new pg.Client({ connectionString: t.databaseUrl });
+    await c.connect();
+    const { rows } = await c.query<{ pid: number }>('SELECT pg_backend_pid() AS pid');
+    return { c, pid: rows[0]!.pid };
+  }
+
+  /** The backend waiting for a lock that backend `blocker` holds (polls; fails after ~10 s of nothing). */
+  async function waitingOn(blocker: number) {
+    for (let i = 0; i < 500; i++) {
+      const rows = (await t.ds.query(
+        `SELECT pid, query FROM pg_stat_activity WHERE datname = current_database() AND wait_event_type = 'Lock' AND $1 = ANY(pg_blocking_pids(pid))`,
+        [blocker],
+      )) as { pid: number; query: string }[];
+      if (rows.length) {
+        expect(rows).toHaveLength(1);
+        return rows[0]!;
+      }
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    throw new Error(`no backend came to wait for backend ${blocker}`);
+  }
+
+  const status = async (trialId: string) => ((await t.ds.query('SELECT status FROM trials WHERE id = $1', [trialId])) as { status: string }[])[0]!.status;
+
+  /** One entry per kind, on plot `plotId` (observations name a plot too, so the insert checks its foreign key). */
+  const entries = (plotId: string) =>
+    [
+      ['water-events', 'water_events', { plotId, occurredAt: '2026-06-05T07:00:00Z', kind: 'surface', volumeL: 3 }],
+      ['moisture-readings', 'moisture_readings', { plotId, takenAt: '2026-06-05T07:05:00Z', method: 'vwc', depthCm: 15, value: 22 }],
+      ['harvests', 'harvests', { plotId, harvestedOn: '2026-07-21', freshKg: 0.8 }],
+      ['observations', 'observations', { plotId, observedAt: '2026-06-05T07:10:00Z', text: 'Leaves curling' }],
+    ] as const;
+
+  it('a write that comes while a close is uncommitted waits for it, then is refused as closed and writes nothing (every kind)', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    for (const [kind, table, entry] of entries(plots[0]!.id)) {
+      const close = await holder();
+      try {
+        await close.c.query('BEGIN');
+        await close.c.query(`UPDATE trials SET status = 'closed', updated_at = now() WHERE id = $1`, [trial.id]);
+        const pending = a.post(`/api/trials/${trial.id}/${kind}`, entry).then((r) => r);
+        // The write statement waits for the close's row lock on the trial (its CTE locks the trial row).
+        expect((await waitingOn(close.pid)).query).toContain(`INSERT INTO ${table}`);
+        await close.c.query('COMMIT');
+        const res = await pending;
+        expect(res.status).toBe(409);
+        expect(res.body.error).toMatchObject({ code: 'conflict', reason: 'trial_closed' });
+        expect(await count(table, trial.id)).toBe(0);
+      } finally {
+        await close.c.end();
+      }
+      // Reopen for the next kind.
+      expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'active' })).status).toBe(200);
+    }
+  });
+
+  it('a close that comes while a write holds the trial waits for it: the record is kept and the trial ends closed (every kind)', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    for (const [kind, table, entry] of entries(plots[0]!.id)) {
+      // Hold the plot row FOR UPDATE: the write's foreign-key check on plot_id (FOR KEY SHARE) waits for
+      // it after the statement has locked the trial row, so the write stops while holding the trial.
+      const plotLock = await holder();
+      try {
+        await plotLock.c.query('BEGIN');
+        await plotLock.c.query('SELECT 1 FROM plots WHERE id = $1 FOR UPDATE', [plots[0]!.id]);
+        const writing = a.post(`/api/trials/${trial.id}/${kind}`, entry).then((r) => r);
+        const write = await waitingOn(plotLock.pid);
+        expect(write.query).toContain(`INSERT INTO ${table}`);
+        const closing = a.post(`/api/trials/${trial.id}/status`, { status: 'closed' }).then((r) => r);
+        // The close waits for the write, not for the plot's holder.
+        expect((await waitingOn(write.pid)).query).toContain('FROM trials WHERE id = $1 FOR NO KEY UPDATE');
+        await plotLock.c.query('COMMIT');
+        const written = await writing;
+        expect(written.status).toBe(201);
+        expect((await closing).status).toBe(200);
+        expect(await count(table, trial.id)).toBe(1);
+        expect(await status(trial.id)).toBe('closed');
+      } finally {
+        await plotLock.c.end();
+      }
+      expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'active' })).status).toBe(200);
+    }
+  });
+
+  it('an edit or a delete that comes while a close is uncommitted waits for it, then is refused as closed and changes nothing', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    const created = await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plots[0]!.id, occurredAt: '2026-06-06T07:00:00Z', kind: 'surface', volumeL: 5 });
+    expect(created.status).toBe(201);
+    const logId = created.body.data.id as string;
+    const volume = async () => ((await t.ds.query('SELECT volume_l::float8 AS v FROM water_events WHERE id = $1', [logId])) as { v: number }[])[0]?.v;
+    for (const change of ['edit', 'delete'] as const) {
+      const close = await holder();
+      try {
+        await close.c.query('BEGIN');
+        await close.c.query(`UPDATE trials SET status = 'closed', updated_at = now() WHERE id = $1`, [trial.id]);
+        const pending = (change === 'edit' ? a.patch(`/api/water-events/${logId}`, { volumeL: 7 }) : a.delete(`/api/water-events/${logId}`)).then((r) => r);
+        // Its first statement locks the log's trial row and waits for the close.
+        expect((await waitingOn(close.pid)).query).toContain('FROM trials t WHERE t.id = (SELECT l.trial_id FROM water_events l');
+        await close.c.query('COMMIT');
+        const res = await pending;
+        expect(res.status).toBe(409);
+        expect(res.body.error).toMatchObject({ code: 'conflict', reason: 'trial_closed' });
+        expect(await volume()).toBe(5);
+      } finally {
+        await close.c.end();
+      }
+      expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'active' })).status).toBe(200);
+    }
+  });
+
+  it('a close that comes while an edit or a delete holds the trial waits for it: the change is kept and the trial ends closed', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    const created = await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plots[0]!.id, occurredAt: '2026-06-06T07:00:00Z', kind: 'surface', volumeL: 5 });
+    expect(created.status).toBe(201);
+    const logId = created.body.data.id as string;
+    const volume = async () => ((await t.ds.query('SELECT volume_l::float8 AS v FROM water_events WHERE id = $1', [logId])) as { v: number }[])[0]?.v;
+    for (const change of ['edit', 'delete'] as const) {
+      // Hold the log row: the edit (SELECT … FOR UPDATE OF l) or the delete (DELETE) waits for it after
+      // its first statement has locked the trial row.
+      const logLock = await holder();
+      try {
+        await logLock.c.query('BEGIN');
+        await logLock.c.query('SELECT 1 FROM water_events WHERE id = $1 FOR UPDATE', [logId]);
+        const changing = (change === 'edit' ? a.patch(`/api/water-events/${logId}`, { volumeL: 7 }) : a.delete(`/api/water-events/${logId}`)).then((r) => r);
+        const changer = await waitingOn(logLock.pid);
+        expect(changer.query).toContain(change === 'edit' ? 'FOR UPDATE OF l' : 'DELETE FROM water_events');
+        const closing = a.post(`/api/trials/${trial.id}/status`, { status: 'closed' }).then((r) => r);
+        expect((await waitingOn(changer.pid)).query).toContain('FROM trials WHERE id = $1 FOR NO KEY UPDATE');
+        await logLock.c.query('COMMIT');
+        expect((await changing).status).toBe(change === 'edit' ? 200 : 204);
+        expect((await closing).status).toBe(200);
+        expect(await volume()).toBe(change === 'edit' ? 7 : undefined);
+        expect(await status(trial.id)).toBe('closed');
+      } finally {
+        await logLock.c.end();
+      }
+      if (change === 'edit') expect((await a.post(`/api/trials/${trial.id}/status`, { status: 'active' })).status).toBe(200);
+    }
+  });
+
+  it('two writes to one trial at once both land (the trial lock is taken once, never upgraded, so they queue instead of deadlocking)', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    // Hold the plot row so the first write stops holding the trial row; the second write queues behind it.
+    const plotLock = await holder();
+    try {
+      await plotLock.c.query('BEGIN');
+      await plotLock.c.query('SELECT 1 FROM plots WHERE id = $1 FOR UPDATE', [plots[0]!.id]);
+      const [first, second] = entries(plots[0]!.id);
+      const one = a.post(`/api/trials/${trial.id}/${first[0]}`, first[2]).then((r) => r);
+      const holding = await waitingOn(plotLock.pid);
+      const two = a.post(`/api/trials/${trial.id}/${second[0]}`, second[2]).then((r) => r);
+      expect((await waitingOn(holding.pid)).query).toContain(`INSERT INTO ${second[1]}`);
+      await plotLock.c.query('COMMIT');
+      expect((await one).status).toBe(201);
+      expect((await two).status).toBe(201);
+      expect(await count(first[1], trial.id)).toBe(1);
+      expect(await count(second[1], trial.id)).toBe(1);
+    } finally {
+      await plotLock.c.end();
+    }
+  });
+});
