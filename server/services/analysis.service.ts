@@ -1,4 +1,4 @@
-import { analyseTrial, type PlotAggregate, type TrialAnalysis, type WeatherAggregate } from '@shared/analysis/trial-analysis';
+import { analyseTrial, type PlotAggregate, type PlotDailyWater, type TrialAnalysis, type WeatherAggregate } from '@shared/analysis/trial-analysis';
 import type { AppContext } from '../context';
 import { AppError } from '../lib/app-error';
 
@@ -27,8 +27,16 @@ export const analysisQueries = {
                          FROM harvests WHERE trial_id = $1 GROUP BY plot_id) h ON h.plot_id = p.id
            WHERE p.trial_id = $1
            ORDER BY p.block_key, p.label`,
-  dailyWater: `SELECT plot_id AS "plotId", to_char(occurred_at AT TIME ZONE ${gardenZone}, 'YYYY-MM-DD') AS day, sum(volume_l) AS litres
-                 FROM water_events WHERE trial_id = $1 GROUP BY 1, 2 ORDER BY 2, 1`,
+  /**
+   * Water per plot and garden day, one row per plot in columns (PlotDailyWater): its first day, the
+   * other days as offsets from it, and each day's litres (float8 prints the shortest exact text, so
+   * the numbers are those of the numeric sums). The daily rows never reach JavaScript.
+   */
+  dailyWater: `SELECT "plotId", to_char(min(day), 'YYYY-MM-DD') AS "firstDay", array_agg(day - first ORDER BY day) AS "dayOffsets", array_agg(litres ORDER BY day) AS litres
+                 FROM (SELECT "plotId", day, litres, min(day) OVER (PARTITION BY "plotId") AS first
+                         FROM (SELECT plot_id AS "plotId", (occurred_at AT TIME ZONE ${gardenZone})::date AS day, sum(volume_l)::float8 AS litres
+                                 FROM water_events WHERE trial_id = $1 GROUP BY 1, 2) g) d
+                GROUP BY "plotId"`,
   /** $1 trial, $2 the request's instant: the garden's weather from planting to the trial's end or the garden's today, whichever is first (asOf). */
   weather: `SELECT to_char(w.day, 'YYYY-MM-DD') AS day, w.t_min_c AS "tMinC", w.t_max_c AS "tMaxC", w.rain_mm AS "rainMm", w.rh_min_pct AS "rhMinPct", w.rh_max_pct AS "rhMaxPct",
                    w.wind_speed_ms AS "windSpeedMs", w.wind_height_m AS "windHeightM", w.sunshine_hours AS "sunshineHours", w.solar_radiation_mj AS "solarRadiationMJ"
@@ -66,7 +74,7 @@ export function analysisService(ctx: AppContext) {
       const [[trial], plots, dailyWater, weather, moisture] = await Promise.all([
         ctx.ds.query(analysisQueries.trial, [trialId, now]) as Promise<TrialRow[]>,
         ctx.ds.query(analysisQueries.plots, [trialId]) as Promise<PlotAggregate[]>,
-        ctx.ds.query(analysisQueries.dailyWater, [trialId]) as Promise<{ plotId: string; day: string; litres: number }[]>,
+        ctx.ds.query(analysisQueries.dailyWater, [trialId]) as Promise<PlotDailyWater[]>,
         ctx.ds.query(analysisQueries.weather, [trialId, now]) as Promise<WeatherAggregate[]>,
         ctx.ds.query(analysisQueries.moisture, [trialId]) as Promise<{ day: string; treatment: string; method: string; mean: number; n: number }[]>,
       ]);

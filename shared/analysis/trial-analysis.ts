@@ -50,8 +50,8 @@ export interface TrialAnalysisInput {
   };
   garden: { latitudeDeg: number; elevationM: number; coastal: boolean };
   plots: PlotAggregate[];
-  /** Litres per plot per calendar day (UTC). */
-  dailyWater: { plotId: string; day: string; litres: number }[];
+  /** Litres per plot per calendar day of the garden, one row per plot in columns (as the analysis SQL returns it). */
+  dailyWater: PlotDailyWater[];
   weather: WeatherAggregate[];
   /** Daily mean soil moisture per treatment and method. */
   moisture: { day: string; treatment: string; method: string; mean: number; n: number }[];
@@ -119,18 +119,46 @@ export interface WeekRow {
 
 /**
  * Water applied to one plot, by day, in columns: day i is `firstDay` plus `dayOffsets[i]` calendar
- * days, and `litres[i]` is what the plot received that day (the database's daily sum, unrounded).
- * Days without water are absent. Running totals are the reader's: `cumulativePoints`.
- * (Columns instead of [day, litres so far] pairs: a 20-plot season went from 90 KB to 25 KB of JSON,
+ * days (ascending, each day once), and `litres[i]` is what the plot received that day (the
+ * database's daily sum, unrounded). Days without water are absent. Running totals are the
+ * reader's: `cumulativePoints`. (Columns instead of one row or [day, litres so far] pair per day:
+ * a 20-plot season went from 90 KB to 25 KB of JSON, and the server no longer reads 3,000 rows;
  * bench/FINDINGS.md "Session 5".)
  */
-export interface PlotWaterDays {
+export interface PlotDailyWater {
   plotId: string;
-  label: string;
-  treatment: string | null;
   firstDay: string;
   dayOffsets: number[];
   litres: number[];
+}
+
+export interface PlotWaterDays extends PlotDailyWater {
+  label: string;
+  treatment: string | null;
+}
+
+/** Sums rows of (plot, day, litres), in any order, into per-plot columns: what the analysis SQL does, for callers holding rows. */
+export function plotDailyWater(rows: { plotId: string; day: string; litres: number }[]): PlotDailyWater[] {
+  const byPlot = new Map<string, Map<string, number>>();
+  for (const r of rows) {
+    let own = byPlot.get(r.plotId);
+    if (!own) byPlot.set(r.plotId, (own = new Map()));
+    own.set(r.day, (own.get(r.day) ?? 0) + r.litres);
+  }
+  return [...byPlot].map(([plotId, days]) => {
+    const sorted = [...days].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+    const first = dayNumberOf(sorted[0]![0]);
+    return { plotId, firstDay: sorted[0]![0], dayOffsets: sorted.map(([day]) => dayNumberOf(day) - first), litres: sorted.map(([, litres]) => litres) };
+  });
+}
+
+/** Days since 1970-01-01 ('YYYY-MM-DD', calendar arithmetic, no time zone). */
+function dayNumberOf(day: string): number {
+  return Math.round(Date.parse(`${day}T00:00:00Z`) / DAY_MS);
+}
+
+function dayOfNumber(n: number): string {
+  return new Date(n * DAY_MS).toISOString().slice(0, 10);
 }
 
 export interface TrialAnalysis {
@@ -170,9 +198,9 @@ function daysBetween(a: string, b: string): number {
 
 /** One plot's water so far: `[day, litres up to and including that day]`, one point per day with water. */
 export function cumulativePoints(s: PlotWaterDays): [day: string, litresSoFar: number][] {
-  const first = Date.parse(`${s.firstDay}T00:00:00Z`);
+  const first = dayNumberOf(s.firstDay);
   let total = 0;
-  return s.dayOffsets.map((offset, i) => [new Date(first + offset * DAY_MS).toISOString().slice(0, 10), (total += s.litres[i]!)]);
+  return s.dayOffsets.map((offset, i) => [dayOfNumber(first + offset), (total += s.litres[i]!)]);
 }
 
 /** Monday of the ISO week containing the day. */
@@ -313,38 +341,11 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     });
   if (comparisons.every((c) => c.pairs.length === 0) && plots.length) warn('noPair', { control });
 
-  // Water per plot and day (daily totals arrive summed by the database), one series per plot: the
-  // plot's id, label and treatment once, its days as offsets from its first day.
+  // Water per plot and day, as the database summed it: the plot's label and treatment added once.
   const byPlot = new Map(plots.map((p) => [p.id, p]));
-  const dailyByPlot = new Map<string, { day: string; litres: number }[]>();
-  for (const r of input.dailyWater) {
-    const own = dailyByPlot.get(r.plotId);
-    if (own) own.push(r);
-    else dailyByPlot.set(r.plotId, [r]);
-  }
-  // A season has ~150 days but ~3,000 daily rows: read each day's date once.
-  const dayNumbers = new Map<string, number>();
-  const dayNumber = (day: string) => {
-    let n = dayNumbers.get(day);
-    if (n === undefined) {
-      n = Math.round(Date.parse(`${day}T00:00:00Z`) / DAY_MS);
-      dayNumbers.set(day, n);
-    }
-    return n;
-  };
-  const waterDays: PlotWaterDays[] = [...dailyByPlot].map(([plotId, days]) => {
-    days.sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : 0));
-    const firstDay = days[0]!.day;
-    const first = dayNumber(firstDay);
-    const p = byPlot.get(plotId);
-    return {
-      plotId,
-      label: p?.label ?? '',
-      treatment: p?.treatment ?? null,
-      firstDay,
-      dayOffsets: days.map((r) => dayNumber(r.day) - first),
-      litres: days.map((r) => r.litres),
-    };
+  const waterDays: PlotWaterDays[] = input.dailyWater.map((w) => {
+    const p = byPlot.get(w.plotId);
+    return { plotId: w.plotId, label: p?.label ?? '', treatment: p?.treatment ?? null, firstDay: w.firstDay, dayOffsets: w.dayOffsets, litres: w.litres };
   });
   waterDays.sort((a, b) => byLabel(a.label, b.label) || (a.plotId < b.plotId ? -1 : a.plotId > b.plotId ? 1 : 0));
 
@@ -352,19 +353,14 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   const kcCrop = cropKc(input.trial.crop, input.trial.kcOverrides);
   if (!kcCrop) warn('noKc');
   const methods: Record<Et0Method, number> = { 'penman-monteith': 0, hargreaves: 0 };
-  const weeks = new Map<string, WeekRow>();
-  // A season has ~150 days but ~3,000 daily rows: compute each day's week once.
-  const weekOfDay = new Map<string, string>();
-  const weekFor = (day: string) => {
-    let key = weekOfDay.get(day);
-    if (key === undefined) {
-      key = weekStart(day);
-      weekOfDay.set(day, key);
-    }
-    let w = weeks.get(key);
+  // Weeks by the day number of their Monday (1970-01-01 was a Thursday: day n's Monday is n − (n + 3) mod 7).
+  const weeks = new Map<number, WeekRow>();
+  const weekFor = (dayNo: number) => {
+    const monday = dayNo - ((((dayNo + 3) % 7) + 7) % 7);
+    let w = weeks.get(monday);
     if (!w) {
-      w = { weekStart: key, et0Mm: 0, etcMm: kcCrop ? 0 : null, rainMm: 0, appliedMm: Object.fromEntries(treatmentNames.map((t) => [t, 0])) };
-      weeks.set(key, w);
+      w = { weekStart: dayOfNumber(monday), et0Mm: 0, etcMm: kcCrop ? 0 : null, rainMm: 0, appliedMm: Object.fromEntries(treatmentNames.map((t) => [t, 0])) };
+      weeks.set(monday, w);
     }
     return w;
   };
@@ -372,8 +368,10 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   let totalEtc = 0;
   let totalRain = 0;
   const weatherDaysInTrial = input.weather.filter((w) => w.day >= input.trial.plantingDate && w.day <= input.asOf);
-  const weatherDaySet = new Set(weatherDaysInTrial.map((w) => w.day));
+  const weatherDaySet = new Set<number>();
   for (const w of weatherDaysInTrial) {
+    const dayNo = dayNumberOf(w.day);
+    weatherDaySet.add(dayNo);
     const r = et0ForDay(
       {
         date: w.day,
@@ -389,7 +387,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
       { latitudeDeg: input.garden.latitudeDeg, elevationM: input.garden.elevationM, coastal: input.garden.coastal },
     );
     methods[r.method] += 1;
-    const week = weekFor(w.day);
+    const week = weekFor(dayNo);
     week.et0Mm += r.et0Mm;
     week.rainMm += w.rainMm;
     totalEt0 += r.et0Mm;
@@ -406,15 +404,21 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   // Applied depth per treatment per week, and over the days that have weather (for the share of ETc).
   const areaByTreatment = new Map(treatments.map((t) => [t.treatment, t.areaM2]));
   const appliedOnWeatherDays = new Map<string, number>();
-  for (const r of input.dailyWater) {
-    const p = byPlot.get(r.plotId);
+  for (const w of input.dailyWater) {
+    const p = byPlot.get(w.plotId);
     if (!p?.treatment) continue;
     const area = areaByTreatment.get(p.treatment) ?? 0;
     if (area <= 0) continue;
-    const mm = depthMm(r.litres, area);
-    const week = weekFor(r.day);
-    week.appliedMm[p.treatment] = (week.appliedMm[p.treatment] ?? 0) + mm;
-    if (weatherDaySet.has(r.day)) appliedOnWeatherDays.set(p.treatment, (appliedOnWeatherDays.get(p.treatment) ?? 0) + mm);
+    const first = dayNumberOf(w.firstDay);
+    let onWeatherDays = 0;
+    for (let i = 0; i < w.dayOffsets.length; i++) {
+      const dayNo = first + w.dayOffsets[i]!;
+      const mm = depthMm(w.litres[i]!, area);
+      const week = weekFor(dayNo);
+      week.appliedMm[p.treatment] = (week.appliedMm[p.treatment] ?? 0) + mm;
+      if (weatherDaySet.has(dayNo)) onWeatherDays += mm;
+    }
+    appliedOnWeatherDays.set(p.treatment, (appliedOnWeatherDays.get(p.treatment) ?? 0) + onWeatherDays);
   }
   const appliedShareOfEtc: Record<string, number | null> = {};
   for (const t of treatmentNames) appliedShareOfEtc[t] = kcCrop && totalEtc > 0 ? (appliedOnWeatherDays.get(t) ?? 0) / totalEtc : null;
@@ -444,7 +448,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
       totalEt0Mm: totalEt0,
       totalEtcMm: kcCrop ? totalEtc : null,
       totalRainMm: totalRain,
-      weekly: [...weeks.values()].sort((a, b) => a.weekStart.localeCompare(b.weekStart)),
+      weekly: [...weeks].sort((a, b) => a[0] - b[0]).map(([, w]) => w),
       appliedShareOfEtc,
     },
     moisture: { series, stress },

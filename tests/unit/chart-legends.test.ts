@@ -11,7 +11,7 @@
 import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
-import { analyseTrial, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
+import { analyseTrial, plotDailyWater, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
 import { trialCharts } from '@shared/charts/trial-charts';
 import { vegaLocale } from '@shared/charts/vega-locale';
 
@@ -25,7 +25,7 @@ function scenario(): TrialAnalysisInput {
     trial: { crop: 'tomato', plantingDate: '2026-05-20', endDate: null, treatments: ['olla', 'surface'], kcOverrides: {}, stressThresholds: {} },
     garden: { latitudeDeg: 34.6, elevationM: 900, coastal: false },
     plots,
-    dailyWater: days.flatMap((day, d) => plots.map((p) => ({ plotId: p.id, day, litres: p.treatment === 'olla' ? (d % 2 ? 0 : 8) : 9 + (d % 3) }))),
+    dailyWater: plotDailyWater(days.flatMap((day, d) => plots.map((p) => ({ plotId: p.id, day, litres: p.treatment === 'olla' ? (d % 2 ? 0 : 8) : 9 + (d % 3) })))),
     weather: days.map((day, d) => ({ day, tMinC: 14 + (d % 4), tMaxC: 31 + (d % 5), rainMm: d === 9 ? 6 : 0, rhMinPct: null, rhMaxPct: null, windSpeedMs: null, windHeightM: 2, sunshineHours: null, solarRadiationMJ: null })),
     moisture: days.flatMap((day, d) => [
       { day, treatment: 'olla', method: 'vwc_percent', mean: 24 - (d % 3), n: 3 },

@@ -8,7 +8,7 @@ import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
 import { describeComparison } from '@shared/analysis/narrative';
-import { analyseTrial, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
+import { analyseTrial, plotDailyWater, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
 import { trialCharts } from '@shared/charts/trial-charts';
 import { vegaLocale } from '@shared/charts/vega-locale';
 import { formatNum, toLang, translator } from '@shared/i18n/translate';
@@ -27,10 +27,12 @@ function input(pairs: [number, number][], extra: Partial<TrialAnalysisInput> = {
     trial: { crop: 'tomato', plantingDate: '2026-05-01', endDate: null, treatments: ['olla', 'surface'], kcOverrides: {}, stressThresholds: {} },
     garden: { latitudeDeg: 35, elevationM: 1500, coastal: false },
     plots,
-    dailyWater: pairs.flatMap(([o, s], i) => [
-      { plotId: `o${i}`, day: '2026-06-01', litres: o * 2 },
-      { plotId: `s${i}`, day: '2026-06-02', litres: s * 2 },
-    ]),
+    dailyWater: plotDailyWater(
+      pairs.flatMap(([o, s], i) => [
+        { plotId: `o${i}`, day: '2026-06-01', litres: o * 2 },
+        { plotId: `s${i}`, day: '2026-06-02', litres: s * 2 },
+      ]),
+    ),
     weather: [],
     moisture: [],
     asOf: '2026-09-30',

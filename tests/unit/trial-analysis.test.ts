@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { describeComparison } from '@shared/analysis/narrative';
-import { analyseTrial, cumulativePoints, weekStart, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
+import { analyseTrial, cumulativePoints, plotDailyWater, weekStart, type TrialAnalysisInput } from '@shared/analysis/trial-analysis';
 import { cumulativeWaterSpec } from '@shared/charts/trial-charts';
 
 // MASS::shoes (Box, Hunter & Hunter 1978, p. 100): material A and B worn by the same boy.
@@ -38,7 +38,7 @@ describe('analyseTrial', () => {
   });
 
   it('never pairs days: a single pair stays descriptive however many logs it has', () => {
-    const r = analyseTrial(input([[30, 70]], { dailyWater: Array.from({ length: 40 }, (_, d) => ({ plotId: 'o0', day: `2026-06-${String((d % 28) + 1).padStart(2, '0')}`, litres: 1 })) }));
+    const r = analyseTrial(input([[30, 70]], { dailyWater: plotDailyWater(Array.from({ length: 40 }, (_, d) => ({ plotId: 'o0', day: `2026-06-${String((d % 28) + 1).padStart(2, '0')}`, litres: 1 }))) }));
     expect(r.comparisons[0]!.metrics.waterMm.kind).toBe('descriptive');
   });
 
@@ -65,14 +65,16 @@ describe('analyseTrial', () => {
     const pairs = Array.from({ length: 11 }, (): [number, number] => [10, 20]);
     const r = analyseTrial(
       input(pairs, {
-        dailyWater: [
+        // Grouped per plot as the analysis SQL does (a second row for a day adds to it).
+        dailyWater: plotDailyWater([
           { plotId: 'o10', day: '2026-06-03', litres: 2 },
           { plotId: 'o2', day: '2026-06-08', litres: 4 },
           { plotId: 'o10', day: '2026-06-01', litres: 1 },
           { plotId: 's2', day: '2026-06-02', litres: 3.5 },
-          { plotId: 'o2', day: '2026-06-01', litres: 0.5 },
+          { plotId: 'o2', day: '2026-06-01', litres: 0.25 },
           { plotId: 'o10', day: '2026-06-08', litres: 4 },
-        ],
+          { plotId: 'o2', day: '2026-06-01', litres: 0.25 },
+        ]),
       }),
     );
     expect(r.waterDays).toEqual([
