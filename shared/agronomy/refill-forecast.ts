@@ -168,6 +168,18 @@ export function suggestTopUp(input: TopUpInput): TopUpSuggestion {
   return { basis: 'capacity', levelL: null, topUpL: input.capacityL };
 }
 
+/**
+ * A suggested volume on a stepper (in the screen's unit): the nearest multiple of `step` (0 when
+ * under half a step), at most the whole steps the pot holds, so rounding never offers more than
+ * the pot's capacity (a 2.6 gal pot is offered 2.5 gal, not 2.75).
+ */
+export function onStepper(value: number, step: number, capacity: number): number {
+  assertPositive('step', step);
+  assertNonNegative('value', value);
+  const wholeSteps = Math.floor(capacity / step + 1e-9) * step;
+  return Math.min(Math.round(value / step) * step, wholeSteps);
+}
+
 /** Crop coefficients with a trial's Kc overrides applied; null for crops without FAO-56 values. */
 export function cropWithOverrides(crop: string, overrides: { ini?: number; mid?: number; end?: number } = {}): CropCoefficients | null {
   const base = CROP_COEFFICIENTS[crop as CropId];

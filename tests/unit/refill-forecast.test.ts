@@ -14,6 +14,7 @@ import {
   frostNights,
   gardenEt0,
   localSolarDate,
+  onStepper,
   suggestTopUp,
   urgencyOrder,
 } from '@shared/agronomy/refill-forecast';
@@ -248,5 +249,22 @@ describe('suggestTopUp', () => {
   it('refuses a pot without capacity and a negative seep rate', () => {
     expect(() => suggestTopUp({ ...pot, capacityL: 0, now: after(1) })).toThrow(AnalysisInputError);
     expect(() => suggestTopUp({ ...pot, seepLPerDay: -1, now: after(1) })).toThrow(AnalysisInputError);
+  });
+});
+
+// The Round's stepper (0.5 L metric, 0.25 gal US): arithmetic only, no source needed.
+describe('onStepper', () => {
+  it('rounds to the nearest step', () => {
+    expect(onStepper(2.4, 0.5, 8)).toBe(2.5);
+    expect(onStepper(2.2, 0.5, 8)).toBe(2);
+    expect(onStepper(0.2, 0.5, 8)).toBe(0);
+  });
+  it('never offers more than the pot holds: a 2.64 gal pot that is empty is offered 2.5 gal, not 2.75', () => {
+    expect(onStepper(2.64, 0.25, 2.64)).toBe(2.5);
+    expect(onStepper(3, 0.25, 2.9)).toBe(2.75);
+    expect(onStepper(8, 0.5, 8)).toBe(8);
+  });
+  it('refuses a step that is not positive', () => {
+    expect(() => onStepper(1, 0, 8)).toThrow();
   });
 });

@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { TFunction } from 'i18next';
 import { moistureRanges, type MoistureMethod, type RoundInput } from '@shared/schemas/logs';
-import { suggestTopUp, type TopUpSuggestion } from '@shared/agronomy/refill-forecast';
+import { onStepper, suggestTopUp, type TopUpSuggestion } from '@shared/agronomy/refill-forecast';
 import { calendarDaysBetween, dayInTimeZone } from '@shared/time-zone';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -103,13 +103,13 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
   const step = units.system === 'us' ? 0.25 : 0.5;
 
   // Each pot with what to pour now. A seep-test estimate is rounded to the stepper's step (what
-  // the − and + buttons would make of it, at least one step); a last refill or a full pot is a
-  // real volume and is kept as it is.
+  // the − and + buttons would make of it, at least one step, at most the pot's capacity); a last
+  // refill or a full pot is a real volume and is kept as it is.
   const pots = useMemo(() => {
     const now = Date.now();
     const list = (round.data?.pots ?? []).map((pot) => {
       const suggestion = topUp(pot, now);
-      const fill = suggestion.basis === 'seep-test' ? Math.round(units.show(suggestion.topUpL, 'volume') / step) * step : null;
+      const fill = suggestion.basis === 'seep-test' ? onStepper(units.show(suggestion.topUpL, 'volume'), step, units.show(pot.capacityL, 'volume')) : null;
       return { pot, suggestion, fill, volume: fill === null ? suggestion.topUpL : units.toSI(Math.max(step, fill), 'volume') };
     });
     // Emptiest first by the seep-test estimate; a pot without one counts as full.
