@@ -40,6 +40,10 @@ export function exportService(ctx: AppContext) {
         res.setHeader('Cache-Control', 'no-store');
         res.write(BOM);
         const stream = client.query(copyTo(`COPY (${sql}) TO STDOUT WITH (FORMAT csv, HEADER true)`));
+        // Eleven 'close' listeners on one response, a fixed number (not one per chunk): the three
+        // compressors (server/http/compression.ts) and the request log before, then pipeline()'s
+        // own. Node warns about a leak past ten, so the limit is raised for this response only.
+        res.setMaxListeners(Math.max(res.getMaxListeners(), 16));
         await pipeline(stream, res);
       });
     },
