@@ -29,12 +29,13 @@ export const analysisQueries = {
            ORDER BY p.block_key, p.label`,
   /**
    * Water per plot and garden day, one row per plot in columns (PlotDailyWater): its first day, the
-   * other days as offsets from it, and each day's litres (float8 prints the shortest exact text, so
-   * the numbers are those of the numeric sums). The daily rows never reach JavaScript.
+   * other days as offsets from it, and each day's litres (volume_l is float8; its array prints the
+   * shortest exact text, so JavaScript gets the very sums PostgreSQL made). The daily rows never
+   * reach JavaScript.
    */
   dailyWater: `SELECT "plotId", to_char(min(day), 'YYYY-MM-DD') AS "firstDay", array_agg(day - first ORDER BY day) AS "dayOffsets", array_agg(litres ORDER BY day) AS litres
                  FROM (SELECT "plotId", day, litres, min(day) OVER (PARTITION BY "plotId") AS first
-                         FROM (SELECT plot_id AS "plotId", (occurred_at AT TIME ZONE ${gardenZone})::date AS day, sum(volume_l)::float8 AS litres
+                         FROM (SELECT plot_id AS "plotId", (occurred_at AT TIME ZONE ${gardenZone})::date AS day, sum(volume_l) AS litres
                                  FROM water_events WHERE trial_id = $1 GROUP BY 1, 2) g) d
                 GROUP BY "plotId"`,
   /** $1 trial, $2 the request's instant: the garden's weather from planting to the trial's end or the garden's today, whichever is first (asOf). */

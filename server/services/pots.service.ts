@@ -5,6 +5,7 @@ import { PotEntity } from '../entities/pot.entity';
 import { SeepTestEntity } from '../entities/seep-test.entity';
 import { AppError } from '../lib/app-error';
 import { zodIssues } from '../middleware/validate';
+import { TRIAL_WRITE_LOCK } from './trials.service';
 
 export function presentSeepTest(s: SeepTestEntity): SeepTest {
   return {
@@ -93,8 +94,18 @@ export function potsService(ctx: AppContext) {
       if (Object.keys(input).length) await pots.update(id, input);
       return this.get(id);
     },
+    /**
+     * Deletes a pot; its logged refills stay in their trials without it (ON DELETE SET NULL, whose
+     * rollup trigger then updates those trials' rows). Lock order as every log write: the trial rows
+     * first (TRIAL_WRITE_LOCK, by id), then the pot. Deleting the pot first would hold it while
+     * waiting for a trial that a refill naming this pot holds while it waits for the pot: a deadlock
+     * (tests/api/log-writes.test.ts "a pot deleted while a refill names it").
+     */
     async remove(id: string): Promise<void> {
-      await pots.delete(id);
+      await ctx.ds.transaction(async (tx) => {
+        await tx.query(`SELECT 1 FROM trials WHERE id IN (SELECT trial_id FROM water_events WHERE pot_id = $1) ORDER BY id ${TRIAL_WRITE_LOCK}`, [id]);
+        await tx.getRepository(PotEntity).delete(id);
+      });
     },
     async addSeepTest(potId: string, input: CreateSeepTestInput): Promise<SeepTest> {
       const { identifiers } = await seeps.insert({ ...input, potId });

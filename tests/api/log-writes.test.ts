@@ -435,4 +435,36 @@ describe('a close racing a log write', () => {
       await plotLock.c.end();
     }
   });
+
+  it('a pot deleted while a refill naming it holds the trial: the delete waits for the trial first, so the refill lands and neither deadlocks', async () => {
+    const a = await grower();
+    const { trial, plots } = await makePairedTrial(a);
+    const plot = plots[0]!;
+    const pot = (await a.post('/api/pots', { label: 'Pot D', capacityL: 8, widestDiameterCm: 26, shape: 'globe', make: 'wheel_thrown', plotId: plot.id })).body.data;
+    const first = await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plot.id, potId: pot.id, occurredAt: '2026-06-04T07:00:00Z', kind: 'olla_refill', volumeL: 6 });
+    expect(first.status).toBe(201);
+    // A refill in flight: it holds its trial (TRIAL_WRITE_LOCK) and has not yet named the pot.
+    const refill = await holder();
+    try {
+      await refill.c.query('BEGIN');
+      await refill.c.query('SELECT 1 FROM trials WHERE id = $1 FOR NO KEY UPDATE', [trial.id]);
+      const pending = a.delete(`/api/pots/${pot.id}`).then((r) => r);
+      // The delete waits for the trial row before it touches the pot ...
+      expect((await waitingOn(refill.pid)).query).toContain('FROM trials');
+      // ... so the refill can still name the pot (its foreign-key check locks the pot row). With the
+      // pot deleted first this insert would wait for the delete while the delete waits for the trial.
+      await refill.c.query(`INSERT INTO water_events (trial_id, plot_id, pot_id, occurred_at, kind, volume_l) VALUES ($1, $2, $3, '2026-06-05T07:00:00Z', 'olla_refill', 5)`, [trial.id, plot.id, pot.id]);
+      await refill.c.query('COMMIT');
+      const res = await pending;
+      expect(res.status).toBe(204);
+    } finally {
+      await refill.c.end();
+    }
+    // Both refills stay in the trial, without their deleted pot.
+    const rows = (await t.ds.query('SELECT volume_l, pot_id FROM water_events WHERE trial_id = $1 ORDER BY occurred_at', [trial.id])) as { volume_l: number; pot_id: string | null }[];
+    expect(rows).toEqual([
+      { volume_l: 6, pot_id: null },
+      { volume_l: 5, pot_id: null },
+    ]);
+  });
 });
