@@ -30,6 +30,13 @@ export const demoAccounts = [
   { email: 'maren@saltbush.example', displayName: 'Maren Sotelo', role: 'grower' },
 ] as const;
 
+/**
+ * When the demo's cohorts began, on the invented season's calendar (before the first gardens are set
+ * up in March; the class in the school year's first weeks), not the day the demo is loaded.
+ */
+const NETWORK_STARTED = '2026-03-02T16:00:00Z';
+const CLASS_STARTED = '2026-08-24T15:00:00Z';
+
 /** Loads the invented demo scenario into an empty database (first start, `npm run db:seed`). */
 export async function seedDemoIfEmpty(dataSource: DataSource, logger: Logger): Promise<boolean> {
   const [{ count }] = (await dataSource.query('SELECT count(*)::int AS count FROM users')) as [{ count: number }];
@@ -47,19 +54,20 @@ export async function seedDemoIfEmpty(dataSource: DataSource, logger: Logger): P
       ids[a.email] = row!.id;
     }
     const [network] = (await tx.query(
-      `INSERT INTO cohorts (name, description, kind, lead_id, join_code, licence)
-       VALUES ($1, $2, 'network', $3, $4, 'CC-BY-4.0') RETURNING id`,
+      `INSERT INTO cohorts (name, description, kind, lead_id, join_code, licence, created_at)
+       VALUES ($1, $2, 'network', $3, $4, 'CC-BY-4.0', $5) RETURNING id`,
       [
         'Saltbush Bend Garden Network',
         'Home gardens across Saltbush Bend comparing buried clay pots with surface watering through one summer.',
         ids['marisol@saltbush.example'],
         newJoinCode(),
+        NETWORK_STARTED,
       ],
     )) as { id: string }[];
     const [klass] = (await tx.query(
-      `INSERT INTO cohorts (name, description, kind, lead_id, join_code, licence)
-       VALUES ($1, $2, 'class', $3, $4, 'CC-BY-4.0') RETURNING id`,
-      ['Saltbush Bend High — Biology 2', 'A class reading the network’s pooled results for their reports.', ids['teacher@saltbush.example'], newJoinCode()],
+      `INSERT INTO cohorts (name, description, kind, lead_id, join_code, licence, created_at)
+       VALUES ($1, $2, 'class', $3, $4, 'CC-BY-4.0', $5) RETURNING id`,
+      ['Saltbush Bend High — Biology 2', 'A class reading the network’s pooled results for their reports.', ids['teacher@saltbush.example'], newJoinCode(), CLASS_STARTED],
     )) as { id: string }[];
     const members: [string, string, 'contributor' | 'observer', string][] = [
       [network!.id, 'ruth@saltbush.example', 'contributor', 'Grower B12'],
@@ -77,8 +85,10 @@ export async function seedDemoIfEmpty(dataSource: DataSource, logger: Logger): P
       [network!.id, 'student@saltbush.example', 'observer', 'Observer H9'],
       [klass!.id, 'student@saltbush.example', 'observer', 'Observer Q2'],
     ];
-    for (const [cohortId, email, role, pseudonym] of members) {
-      await tx.query(`INSERT INTO cohort_memberships (cohort_id, user_id, role, pseudonym) VALUES ($1, $2, $3, $4)`, [cohortId, ids[email], role, pseudonym]);
+    for (const [i, [cohortId, email, role, pseudonym]] of members.entries()) {
+      // Members join in the week after their cohort starts, not on the day the demo is loaded.
+      const joined = new Date(Date.parse(cohortId === network!.id ? NETWORK_STARTED : CLASS_STARTED) + ((i % 7) + 1) * 86_400_000).toISOString();
+      await tx.query(`INSERT INTO cohort_memberships (cohort_id, user_id, role, pseudonym, created_at) VALUES ($1, $2, $3, $4, $5)`, [cohortId, ids[email], role, pseudonym, joined]);
     }
     // The 2026 season: gardens, trials, pots, weather and every log, generated from cast.ts.
     const counts = await seedSeason(tx, ids, network!.id);
