@@ -225,17 +225,6 @@ export function addDays(isoDate: string, days: number): string {
   return new Date(t + days * DAY_MS).toISOString().slice(0, 10);
 }
 
-/**
- * The calendar date at a garden, from its longitude: mean solar time, UTC + round(longitude / 15)
- * hours. Seepwise stores no time zones; this keeps "today" and "one reminder a day" close to the
- * grower's own day (within an hour or so of civil time away from zone edges and summer time).
- */
-export function localSolarDate(now: Date | string, longitudeDeg: number): string {
-  assertFinite('longitudeDeg', longitudeDeg);
-  const offsetHours = Math.round(longitudeDeg / 15);
-  return new Date(instant('now', now) + offsetHours * 3_600_000).toISOString().slice(0, 10);
-}
-
 /** Frost at or below 0 °C (meteorological convention; common practice, no source). */
 export const FROST_THRESHOLD_C = 0;
 /** Days ahead, after today, that a frost warning looks at. */

@@ -120,7 +120,7 @@ export function describeComparison(c: Comparison, f: Fmt): string[] {
     const conf = Math.round(c.metrics.waterMm.result.confidence * 100);
     out.push(
       f.lang === 'es'
-        ? `El intervalo es el rango de diferencias medias compatibles con estos ${n} pares al ${conf} % de confianza. Un huerto durante una temporada es un solo sitio: agruparlo con otros huertos en una cohorte da una respuesta más general.`
+        ? `El intervalo es el rango de diferencias medias compatibles con estos ${n} pares al ${conf} % de confianza. Un huerto durante una temporada es un solo sitio: agruparlo con otros huertos en un grupo da una respuesta más general.`
         : `The interval is the range of average differences compatible with these ${n} pairs at ${conf}% confidence. One garden over one season is one site; pooling with other gardens in a cohort gives a more general answer.`,
     );
     if (n < 5) {

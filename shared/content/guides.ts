@@ -61,7 +61,7 @@ export const fairTrialGuide: Guide = {
         ),
         p(
           'As a rough guide, about ten pairs give an 80% chance of detecting a true difference as large as the typical scatter of the pair differences (one standard deviation), at the usual 5% level. Few home gardens have room for that, which is one reason cohorts pool gardens. The Planner works out a number from your own figures.',
-          'Como referencia aproximada, unos diez pares dan un 80 % de probabilidad de detectar una diferencia real del tamaño de la dispersión típica de las diferencias entre pares (una desviación estándar), con el nivel habitual del 5 %. Pocos huertos caseros tienen espacio para tanto, y por eso las cohortes juntan varios huertos. El Planificador calcula un número con tus propios datos.',
+          'Como referencia aproximada, unos diez pares dan un 80 % de probabilidad de detectar una diferencia real del tamaño de la dispersión típica de las diferencias entre pares (una desviación estándar), con el nivel habitual del 5 %. Pocos huertos caseros tienen espacio para tanto, y por eso los grupos juntan varios huertos. El Planificador calcula un número con tus propios datos.',
         ),
       ],
     },
@@ -209,7 +209,7 @@ export const fairTrialGuide: Guide = {
         ),
         p(
           'That is why cohorts exist. Each garden contributes one estimate, and pooling many gardens, while allowing for real differences between them, shows how large the saving tends to be and how much it varies from place to place. Reported savings against surface watering vary widely, from around half the water in common garden experience to 70-84% in some field studies, so expect your own figure to differ from anyone else’s.',
-          'Para eso existen las cohortes. Cada huerto aporta una estimación, y al juntar muchos huertos, teniendo en cuenta las diferencias reales entre ellos, se ve qué tan grande suele ser el ahorro y cuánto cambia de un lugar a otro. Los ahorros informados frente al riego superficial varían mucho, desde alrededor de la mitad del agua según la experiencia habitual en huertos hasta un 70-84 % en algunos estudios de campo, así que es de esperar que tu cifra sea distinta a la de otros.',
+          'Para eso existen los grupos. Cada huerto aporta una estimación, y al juntar muchos huertos, teniendo en cuenta las diferencias reales entre ellos, se ve qué tan grande suele ser el ahorro y cuánto cambia de un lugar a otro. Los ahorros informados frente al riego superficial varían mucho, desde alrededor de la mitad del agua según la experiencia habitual en huertos hasta un 70-84 % en algunos estudios de campo, así que es de esperar que tu cifra sea distinta a la de otros.',
         ),
       ],
     },

@@ -15,7 +15,6 @@ export const paths = {
   cohorts: '/cohorts',
   cohort: (id: string) => `/cohorts/${id}`,
   joinCohort: '/join',
-  gardens: '/gardens',
   newGarden: '/gardens/new',
   garden: (id: string) => `/gardens/${id}`,
   trial: (id: string) => `/trials/${id}`,

@@ -13,7 +13,6 @@ import {
   forecastRefill,
   frostNights,
   gardenEt0,
-  localSolarDate,
   onStepper,
   suggestTopUp,
   urgencyOrder,
@@ -185,12 +184,7 @@ describe('frostNights (≤ 0 °C: common practice, no source)', () => {
 });
 
 describe('dates and order', () => {
-  it("takes the garden's date from its longitude (UTC + round(longitude / 15) h)", () => {
-    // Longitude −106.7° → UTC−7: 05:00 UTC is 22:00 the day before.
-    expect(localSolarDate('2026-06-03T05:00:00Z', -106.7)).toBe('2026-06-02');
-    expect(localSolarDate('2026-06-03T08:00:00Z', -106.7)).toBe('2026-06-03');
-    // Longitude 150° → UTC+10.
-    expect(localSolarDate('2026-06-03T15:00:00Z', 150)).toBe('2026-06-04');
+  it('adds calendar days across a month end and refuses a date that is not YYYY-MM-DD', () => {
     expect(addDays('2026-02-27', 2)).toBe('2026-03-01');
     expect(() => addDays('27/02/2026', 1)).toThrow(AnalysisInputError);
   });
