@@ -355,13 +355,19 @@ describe('a close racing a log write', () => {
     }
   });
 
-  it('an edit or a delete that comes while a close is uncommitted waits for it, then is refused as closed and changes nothing', async () => {
+  /** A grower's trial with one 5 L surface watering, and a reader of that record's volume. */
+  async function loggedSurfaceWater() {
     const a = await grower();
     const { trial, plots } = await makePairedTrial(a);
     const created = await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plots[0]!.id, occurredAt: '2026-06-06T07:00:00Z', kind: 'surface', volumeL: 5 });
     expect(created.status).toBe(201);
     const logId = created.body.data.id as string;
     const volume = async () => ((await t.ds.query('SELECT volume_l::float8 AS v FROM water_events WHERE id = $1', [logId])) as { v: number }[])[0]?.v;
+    return { a, trial, logId, volume };
+  }
+
+  it('an edit or a delete that comes while a close is uncommitted waits for it, then is refused as closed and changes nothing', async () => {
+    const { a, trial, logId, volume } = await loggedSurfaceWater();
     for (const change of ['edit', 'delete'] as const) {
       const close = await holder();
       try {
@@ -383,12 +389,7 @@ describe('a close racing a log write', () => {
   });
 
   it('a close that comes while an edit or a delete holds the trial waits for it: the change is kept and the trial ends closed', async () => {
-    const a = await grower();
-    const { trial, plots } = await makePairedTrial(a);
-    const created = await a.post(`/api/trials/${trial.id}/water-events`, { plotId: plots[0]!.id, occurredAt: '2026-06-06T07:00:00Z', kind: 'surface', volumeL: 5 });
-    expect(created.status).toBe(201);
-    const logId = created.body.data.id as string;
-    const volume = async () => ((await t.ds.query('SELECT volume_l::float8 AS v FROM water_events WHERE id = $1', [logId])) as { v: number }[])[0]?.v;
+    const { a, trial, logId, volume } = await loggedSurfaceWater();
     for (const change of ['edit', 'delete'] as const) {
       // Hold the log row: the edit (SELECT … FOR UPDATE OF l) or the delete (DELETE) waits for it after
       // its first statement has locked the trial row.
