@@ -23,6 +23,7 @@ import { AnalysisInputError, assertFinite, assertNonNegative, assertPositive } f
 import { CROP_COEFFICIENTS, etc, kcForDay, type CropCoefficients, type CropId } from './crop-coefficients';
 import { et0ForDay, type GardenSite, type WeatherDay } from './et0';
 import { refillIntervalDays } from './olla-layout';
+import { addDays as addCalendarDays } from '../time-zone';
 
 const DAY_MS = 86_400_000;
 
@@ -218,11 +219,10 @@ export function gardenEt0(days: readonly (WeatherDay & { date: string })[], gard
   return { et0MmPerDay: total / recent.length, source: 'weather', days: recent.length };
 }
 
-/** Adds whole days to an ISO date. */
+/** Adds whole days to an ISO date (shared/time-zone.ts), refusing one that is not YYYY-MM-DD with an AnalysisInputError. */
 export function addDays(isoDate: string, days: number): string {
-  const t = Date.parse(`${isoDate}T00:00:00Z`);
-  if (!Number.isFinite(t)) throw new AnalysisInputError(`Date must look like YYYY-MM-DD (got "${isoDate}").`);
-  return new Date(t + days * DAY_MS).toISOString().slice(0, 10);
+  if (!Number.isFinite(Date.parse(`${isoDate}T00:00:00Z`))) throw new AnalysisInputError(`Date must look like YYYY-MM-DD (got "${isoDate}").`);
+  return addCalendarDays(isoDate, days);
 }
 
 /** Frost at or below 0 °C (meteorological convention; common practice, no source). */

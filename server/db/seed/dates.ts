@@ -3,6 +3,11 @@
  * strings. Saltbush Bend keeps a clock six hours behind UTC through the growing season
  * (an invented town; the offset only places morning and evening walks at believable hours).
  */
+import { addDays } from '@shared/time-zone';
+
+/** Calendar arithmetic on ISO days is the app's own (shared/time-zone.ts). */
+export { addDays };
+
 export const LOCAL_UTC_OFFSET_HOURS = -6;
 /**
  * The gardens' IANA time zone: Saltbush Bend is invented, but its longitude (about 105° W) and its
@@ -12,10 +17,6 @@ export const LOCAL_UTC_OFFSET_HOURS = -6;
 export const DEMO_TIME_ZONE = 'America/Denver';
 
 const DAY_MS = 86_400_000;
-
-export function addDays(day: string, days: number): string {
-  return new Date(Date.parse(`${day}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10);
-}
 
 export function daysBetween(from: string, to: string): number {
   return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
