@@ -112,9 +112,24 @@ export function instantOfWallClockInput(value: string, zone: string): string | n
   return new Date(instantOfWallClock({ y, m: mo, d, hh, mm, ss }, zone)).toISOString();
 }
 
+/** Days since 1970-01-01 of a calendar day ('YYYY-MM-DD'): calendar arithmetic, no time zone. */
+export function dayNumber(day: string): number {
+  return Math.round(Date.parse(`${day}T00:00:00Z`) / 86_400_000);
+}
+
+/** The calendar day ('YYYY-MM-DD') `n` days after 1970-01-01. */
+export function dayOfNumber(n: number): string {
+  return new Date(n * 86_400_000).toISOString().slice(0, 10);
+}
+
 /** `day` ('YYYY-MM-DD') plus `n` calendar days. */
 export function addDays(day: string, n: number): string {
-  return new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
+  return dayOfNumber(dayNumber(day) + n);
+}
+
+/** Calendar days from day `from` to day `to` ('YYYY-MM-DD'), negative when `to` comes first. */
+export function daysBetween(from: string, to: string): number {
+  return dayNumber(to) - dayNumber(from);
 }
 
 /**
@@ -123,5 +138,5 @@ export function addDays(day: string, n: number): string {
  * negative when `from` is on a later day than `to`.
  */
 export function calendarDaysBetween(from: Date | string | number, to: Date | string | number, zone: string): number {
-  return Math.round((Date.parse(`${dayInTimeZone(to, zone)}T00:00:00Z`) - Date.parse(`${dayInTimeZone(from, zone)}T00:00:00Z`)) / 86_400_000);
+  return daysBetween(dayInTimeZone(from, zone), dayInTimeZone(to, zone));
 }

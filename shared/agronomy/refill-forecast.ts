@@ -158,9 +158,9 @@ export function suggestTopUp(input: TopUpInput): TopUpSuggestion {
   assertPositive('capacityL', input.capacityL);
   if (input.seepLPerDay !== null && input.lastRefill) {
     // No `firstFill`: the pot is taken as full after its last refill, as the Round has always shown it.
-    const { levelL } = forecastRefill({ capacityL: input.capacityL, lastRefill: { at: input.lastRefill.at, volumeL: input.lastRefill.volumeL }, seepLPerDay: input.seepLPerDay, now: typeof input.now === 'number' ? new Date(input.now) : input.now });
+    const { levelL } = forecastRefill({ capacityL: input.capacityL, lastRefill: input.lastRefill, seepLPerDay: input.seepLPerDay, now: typeof input.now === 'number' ? new Date(input.now) : input.now });
     const left = Math.min(input.capacityL, Math.max(0, levelL!));
-    return { basis: 'seep-test', levelL: left, topUpL: Math.min(input.capacityL, Math.max(0, input.capacityL - left)) };
+    return { basis: 'seep-test', levelL: left, topUpL: input.capacityL - left };
   }
   if (input.lastRefill) {
     assertNonNegative('lastRefill.volumeL', input.lastRefill.volumeL);

@@ -9,6 +9,7 @@ import { CROP_COEFFICIENTS, etc, kcForDay, type CropCoefficients, type CropId } 
 import { et0ForDay, type Et0Method } from '../agronomy/et0';
 import { describePairs, pairedComparison, type PairDescription, type PairedComparison } from './paired';
 import { depthMm, harvestRatio, waterSavingPercent, waterUseEfficiency } from './water';
+import { daysBetween, dayNumber, dayOfNumber } from '../time-zone';
 
 export interface PlotAggregate {
   id: string;
@@ -147,19 +148,11 @@ export function plotDailyWater(rows: { plotId: string; day: string; litres: numb
   }
   return [...byPlot].map(([plotId, days]) => {
     const sorted = [...days].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
-    const first = dayNumberOf(sorted[0]![0]);
-    return { plotId, firstDay: sorted[0]![0], dayOffsets: sorted.map(([day]) => dayNumberOf(day) - first), litres: sorted.map(([, litres]) => litres) };
+    const first = dayNumber(sorted[0]![0]);
+    return { plotId, firstDay: sorted[0]![0], dayOffsets: sorted.map(([day]) => dayNumber(day) - first), litres: sorted.map(([, litres]) => litres) };
   });
 }
 
-/** Days since 1970-01-01 ('YYYY-MM-DD', calendar arithmetic, no time zone). */
-function dayNumberOf(day: string): number {
-  return Math.round(Date.parse(`${day}T00:00:00Z`) / DAY_MS);
-}
-
-function dayOfNumber(n: number): string {
-  return new Date(n * DAY_MS).toISOString().slice(0, 10);
-}
 
 export interface TrialAnalysis {
   plots: PlotSummary[];
@@ -187,27 +180,24 @@ export interface TrialAnalysis {
   notices: AnalysisNotice[];
 }
 
-const DAY_MS = 86_400_000;
-
 /** One collator for every sort: building one per comparison cost most of the route's time (benchmark). */
 const byLabel = new Intl.Collator('en', { numeric: true }).compare;
 
-function daysBetween(a: string, b: string): number {
-  return Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / DAY_MS);
-}
-
 /** One plot's water so far: `[day, litres up to and including that day]`, one point per day with water. */
 export function cumulativePoints(s: PlotWaterDays): [day: string, litresSoFar: number][] {
-  const first = dayNumberOf(s.firstDay);
+  const first = dayNumber(s.firstDay);
   let total = 0;
   return s.dayOffsets.map((offset, i) => [dayOfNumber(first + offset), (total += s.litres[i]!)]);
 }
 
+/** Day number of the Monday of day number `n`'s ISO week (1970-01-01, day 0, was a Thursday). */
+function mondayOf(n: number): number {
+  return n - ((((n + 3) % 7) + 7) % 7);
+}
+
 /** Monday of the ISO week containing the day. */
 export function weekStart(day: string): string {
-  const d = new Date(`${day}T00:00:00Z`);
-  const dow = (d.getUTCDay() + 6) % 7;
-  return new Date(d.getTime() - dow * DAY_MS).toISOString().slice(0, 10);
+  return dayOfNumber(mondayOf(dayNumber(day)));
 }
 
 function safeWue(kg: number, litres: number): number | null {
@@ -345,7 +335,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   const byPlot = new Map(plots.map((p) => [p.id, p]));
   const waterDays: PlotWaterDays[] = input.dailyWater.map((w) => {
     const p = byPlot.get(w.plotId);
-    return { plotId: w.plotId, label: p?.label ?? '', treatment: p?.treatment ?? null, firstDay: w.firstDay, dayOffsets: w.dayOffsets, litres: w.litres };
+    return { ...w, label: p?.label ?? '', treatment: p?.treatment ?? null };
   });
   waterDays.sort((a, b) => byLabel(a.label, b.label) || (a.plotId < b.plotId ? -1 : a.plotId > b.plotId ? 1 : 0));
 
@@ -353,10 +343,10 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   const kcCrop = cropKc(input.trial.crop, input.trial.kcOverrides);
   if (!kcCrop) warn('noKc');
   const methods: Record<Et0Method, number> = { 'penman-monteith': 0, hargreaves: 0 };
-  // Weeks by the day number of their Monday (1970-01-01 was a Thursday: day n's Monday is n − (n + 3) mod 7).
+  // Weeks by the day number of their Monday.
   const weeks = new Map<number, WeekRow>();
   const weekFor = (dayNo: number) => {
-    const monday = dayNo - ((((dayNo + 3) % 7) + 7) % 7);
+    const monday = mondayOf(dayNo);
     let w = weeks.get(monday);
     if (!w) {
       w = { weekStart: dayOfNumber(monday), et0Mm: 0, etcMm: kcCrop ? 0 : null, rainMm: 0, appliedMm: Object.fromEntries(treatmentNames.map((t) => [t, 0])) };
@@ -370,7 +360,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
   const weatherDaysInTrial = input.weather.filter((w) => w.day >= input.trial.plantingDate && w.day <= input.asOf);
   const weatherDaySet = new Set<number>();
   for (const w of weatherDaysInTrial) {
-    const dayNo = dayNumberOf(w.day);
+    const dayNo = dayNumber(w.day);
     weatherDaySet.add(dayNo);
     const r = et0ForDay(
       {
@@ -409,7 +399,7 @@ export function analyseTrial(input: TrialAnalysisInput): TrialAnalysis {
     if (!p?.treatment) continue;
     const area = areaByTreatment.get(p.treatment) ?? 0;
     if (area <= 0) continue;
-    const first = dayNumberOf(w.firstDay);
+    const first = dayNumber(w.firstDay);
     let onWeatherDays = 0;
     for (let i = 0; i < w.dayOffsets.length; i++) {
       const dayNo = first + w.dayOffsets[i]!;

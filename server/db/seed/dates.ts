@@ -3,10 +3,10 @@
  * strings. Saltbush Bend keeps a clock six hours behind UTC through the growing season
  * (an invented town; the offset only places morning and evening walks at believable hours).
  */
-import { addDays } from '@shared/time-zone';
+import { addDays, daysBetween } from '@shared/time-zone';
 
 /** Calendar arithmetic on ISO days is the app's own (shared/time-zone.ts). */
-export { addDays };
+export { addDays, daysBetween };
 
 export const LOCAL_UTC_OFFSET_HOURS = -6;
 /**
@@ -15,12 +15,6 @@ export const LOCAL_UTC_OFFSET_HOURS = -6;
  * season (April to September; summer time runs March to November).
  */
 export const DEMO_TIME_ZONE = 'America/Denver';
-
-const DAY_MS = 86_400_000;
-
-export function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / DAY_MS);
-}
 
 /** Every day from `from` to `to`, both included. */
 export function eachDay(from: string, to: string): string[] {

@@ -150,6 +150,12 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
 
   const count = Object.keys(entries).length;
   const now = Date.now();
+  /** The line under a pot: where its suggested volume comes from. */
+  const suggestionNote = (suggestion: TopUpSuggestion, fill: number | null) => {
+    if (fill === null) return suggestion.basis === 'last-refill' ? t(($) => $.suggestion.lastRefill) : t(($) => $.suggestion.fullPot);
+    if (fill === 0) return t(($) => $.suggestion.stillFull);
+    return t(($) => $.suggestion.toFill, { volume: `${formatNumber(fill, 2)} ${units.label('volume')}` });
+  };
   // The walk goes to the queue at once: sent now with a connection, kept on the phone without one.
   const submit = () => {
     const input = toInput(Object.values(entries), new Date().toISOString(), timeZone);
@@ -254,13 +260,7 @@ export function RoundScreen({ trialId, title, timeZone, focusPotId }: { trialId:
               `${t(($) => $.potSub, { capacity: units.fmt(p.capacityL, 'volume', 1), ago: daysAgo(p.lastRefillAt, now, timeZone, t) })}${p.condition !== 'sound' ? ` · ${conditionText(p.condition)}` : ''}`,
               suggestion.levelL,
               p.capacityL,
-              fill === null
-                ? suggestion.basis === 'last-refill'
-                  ? t(($) => $.suggestion.lastRefill)
-                  : t(($) => $.suggestion.fullPot)
-                : fill === 0
-                  ? t(($) => $.suggestion.stillFull)
-                  : t(($) => $.suggestion.toFill, { volume: `${formatNumber(fill, 2)} ${units.label('volume')}` }),
+              suggestionNote(suggestion, fill),
             ),
           )}
         </ul>
